@@ -1,0 +1,21 @@
+import type { Role } from '#shared/types/roles'
+
+export interface NavItem {
+  to: string
+  label: string
+  roles?: Role[]
+}
+
+// The signed-in navigation; an item without roles is for everyone signed in.
+const ITEMS: NavItem[] = [
+  { to: '/yards', label: 'My yards' },
+  { to: '/admin/users', label: 'People', roles: ['coordinator'] },
+  { to: '/admin/mail', label: 'Sent mail', roles: ['coordinator'] },
+]
+
+export function useNavigation() {
+  const { role } = useAccount()
+  const config = useRuntimeConfig()
+  return computed(() => ITEMS.filter((i) => (!i.roles || (role.value && i.roles.includes(role.value)))
+    && (i.to !== '/admin/mail' || config.public.demoMode)))
+}

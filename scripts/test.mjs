@@ -1,0 +1,74 @@
+// `npm test`: the same preparation as `npm start` against a fresh test database, then every suite:
+// typecheck, unit tests, API tests over HTTP against the built server, browser tests in Debian's Chromium.
+// Extra arguments go to vitest (`npm test -- tests/unit`). WW_INSTANCE=name keeps parallel runs apart.
+import { join } from 'node:path'
+import { spawnSync } from 'node:child_process'
+import { rmSync } from 'node:fs'
+import {
+  ROOT, DATA, log, ensureNodeModules, ensureChromium, startMariaDb, ensureDatabase, migrate, startFakeSmtp,
+  build, spawnChild, stopAll, waitForHttp, freePort, waitForChildrenExit, fail,
+} from './lib/services.mjs'
+
+const instance = (process.env.WW_INSTANCE || '').replace(/[^a-z0-9_]/gi, '')
+const suffix = instance ? `_${instance}` : ''
+const vitestArgs = process.argv.slice(2)
+
+async function finish(code) {
+  stopAll()
+  await waitForChildrenExit()
+  process.exit(code)
+}
+process.on('SIGINT', () => finish(130))
+
+ensureNodeModules()
+ensureChromium()
+const db = await startMariaDb()
+const databaseUrl = ensureDatabase(db, `wildward_test${suffix}`, { fresh: true })
+migrate(databaseUrl)
+
+const mailStore = join(DATA, `test-mail${suffix}.jsonl`)
+rmSync(mailStore, { force: true })
+const fake = await startFakeSmtp({ smtpPort: await freePort(), httpPort: await freePort(), store: mailStore })
+
+const nuxtDir = `.nuxt-test${suffix}`
+const outputDir = `.output-test${suffix}`
+const port = await freePort()
+const baseUrl = `http://127.0.0.1:${port}`
+const uploadDir = join(DATA, `test-uploads${suffix}`)
+rmSync(uploadDir, { recursive: true, force: true })
+const env = {
+  ...process.env,
+  NUXT_TELEMETRY_DISABLED: '1',
+  WW_NUXT_DIR: nuxtDir,
+  WW_OUTPUT_DIR: outputDir,
+  HOST: '127.0.0.1',
+  PORT: String(port),
+  NUXT_DATABASE_URL: databaseUrl,
+  NUXT_SESSION_PASSWORD: 'test-session-password-at-least-32-characters-long',
+  NUXT_SMTP_URL: fake.smtpUrl,
+  NUXT_MAIL_CAPTURE_URL: fake.captureUrl,
+  NUXT_APP_URL: baseUrl,
+  NUXT_DEMO_DATA: 'true',
+  NUXT_PUBLIC_DEMO_MODE: 'true',
+  NUXT_UPLOAD_DIR: uploadDir,
+  // the throttle test sends X-Forwarded-For to act as several addresses
+  NUXT_TRUST_PROXY: 'true',
+}
+
+if (process.env.WW_SKIP_TYPECHECK !== '1') {
+  log('type-checking (nuxt typecheck)')
+  const r = spawnSync('npx', ['nuxt', 'typecheck'], { stdio: 'inherit', cwd: ROOT, env })
+  if (r.status !== 0) fail('type errors')
+}
+if (process.env.WW_SKIP_BUILD !== '1') build(env)
+
+const server = spawnChild('server', process.execPath, [join(ROOT, outputDir, 'server', 'index.mjs')], { env, stdio: ['ignore', 'ignore', 'inherit'] })
+await waitForHttp(`${baseUrl}/api/health`, 60_000, server)
+log(`test server on ${baseUrl}`)
+
+const r = spawnSync('npx', ['vitest', 'run', '--config', 'tests/vitest.config.ts', ...vitestArgs], {
+  stdio: 'inherit',
+  cwd: ROOT,
+  env: { ...env, WW_BASE_URL: baseUrl, WW_MAIL_URL: fake.captureUrl, DATABASE_URL: databaseUrl, WW_SERVER_ENTRY: join(ROOT, outputDir, 'server', 'index.mjs') },
+})
+await finish(r.status ?? 1)

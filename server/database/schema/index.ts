@@ -1,0 +1,4 @@
+// The Drizzle schema: one file per domain, all re-exported here (drizzle.config.ts and server/utils/db.ts read this).
+export * from './accounts'
+export * from './yards'
+export * from './settings'

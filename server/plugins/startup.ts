@@ -1,0 +1,16 @@
+// Start-up work: make sure the organisation exists and, in demo mode, load the demo data once.
+import { ensureOrganisation } from '../services/organisation'
+import { loadDemoData } from '../services/demo-data'
+
+export default defineNitroPlugin(() => {
+  const config = useRuntimeConfig()
+  if (!config.databaseUrl) return
+  setStartupWork((async () => {
+    try {
+      await ensureOrganisation()
+      if (config.demoData) await onceAcrossInstances('demo-data/1', (tx) => loadDemoData(tx))
+    } catch (e) {
+      console.error('[wildward] start-up work failed:', (e as Error).message)
+    }
+  })())
+})

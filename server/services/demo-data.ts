@@ -1,0 +1,98 @@
+// The invented demo scenario: a volunteer group in a made-up town, three demo accounts (password
+// "wildward-demo", demo only) and two yards. Nothing here describes a real person, group or place.
+import { eq } from 'drizzle-orm'
+import { users, yards, yardMembers, organisation } from '../database/schema'
+import type { YardDocument } from '#shared/schemas/yard-document'
+import { YARD_FORMAT } from '#shared/schemas/yard-document'
+
+export const DEMO_PASSWORD = 'wildward-demo'
+export const DEMO_ORGANISATION = 'Bramblewick Native Yards Circle'
+export const DEMO_TOWN = 'Alderwick Crossing'
+
+export const DEMO_ACCOUNTS = [
+  { email: 'homeowner@example.org', name: 'Robin Quarrendon', role: 'homeowner' },
+  { email: 'advisor@example.org', name: 'Sam Fennimore', role: 'advisor' },
+  { email: 'coordinator@example.org', name: 'Jo Birchall', role: 'coordinator' },
+] as const
+
+const rect = (x: number, y: number, w: number, h: number): [number, number][] => [[x, y], [x + w, y], [x + w, y + h], [x, y + h]]
+
+/** A suburban lot, 18 m × 36 m: house, drive, lawn everywhere else, one bed with a start on natives. */
+export function demoFrontYard(): YardDocument {
+  return {
+    format: YARD_FORMAT,
+    name: 'Larch Lane front and back',
+    region: 'US-OH',
+    zone: '6a',
+    frost: { lastSpring: '04-28', firstFall: '10-14' },
+    units: 'ft',
+    boundary: rect(0, 0, 18, 36),
+    areas: [
+      { id: 'house', kind: 'building', z: 10, points: rect(4, 12, 10, 9), label: 'House' },
+      { id: 'drive', kind: 'paving', z: 9, points: rect(14, 14, 4, 22), label: 'Drive' },
+      { id: 'walk', kind: 'paving', z: 9, points: rect(8, 21, 1.5, 15), label: 'Front walk' },
+      { id: 'bed-south', kind: 'bed', z: 5, points: rect(1, 23, 6, 4), sun: 'full', soil: 'clay', moisture: 'medium', label: 'Front bed' },
+      { id: 'bed-back', kind: 'bed', z: 5, points: rect(1, 1, 16, 3), sun: 'part', soil: 'loam', moisture: 'medium', label: 'Back fence bed' },
+    ],
+    plantings: [
+      { id: 'lawn', species: 'Poa pratensis', points: rect(0, 0, 18, 36), z: 0, spacing: null, height: 0.08, label: 'Lawn' },
+      { id: 'oak', species: 'Quercus alba', x: 4, y: 6, count: 1, spread: 9, height: 15 },
+      { id: 'maple', species: 'Acer platanoides', x: 12, y: 30, count: 1, spread: 8, height: 12, label: 'Street-side maple' },
+      { id: 'barberry', species: 'Berberis thunbergii', x: 11, y: 22.5, count: 3, spread: 1.2, height: 1.2 },
+      { id: 'milkweed', species: 'Asclepias tuberosa', x: 2.5, y: 25, count: 5, spread: 0.45, height: 0.6 },
+      { id: 'coneflower', species: 'Echinacea purpurea', cultivar: 'Sunset Lantern', x: 5, y: 25, count: 3, spread: 0.5, height: 0.9 },
+      { id: 'sedge', species: 'Carex pensylvanica', points: rect(2, 1.5, 8, 2), z: 6, spacing: 0.3, height: 0.2 },
+      { id: 'mystery', species: null, x: 15, y: 2.5, count: 1, spread: 1.5, height: 1.5, label: 'Shrub by the shed (unknown)' },
+    ],
+    lines: [{ id: 'wires', kind: 'overhead', points: [[0, 35], [18, 35]], label: 'Service wires' }],
+  }
+}
+
+/** A small back garden already well on its way. */
+export function demoBackGarden(): YardDocument {
+  return {
+    format: YARD_FORMAT,
+    name: 'Millrace Court garden',
+    region: 'US-OH',
+    zone: '6a',
+    frost: { lastSpring: '04-25', firstFall: '10-18' },
+    units: 'm',
+    boundary: rect(0, 0, 15, 20),
+    areas: [
+      { id: 'house', kind: 'building', z: 10, points: rect(2, 14, 11, 6), label: 'House' },
+      { id: 'patio', kind: 'paving', z: 9, points: rect(4, 11, 6, 3), label: 'Patio' },
+      { id: 'meadow-bed', kind: 'bed', z: 5, points: rect(0.5, 0.5, 14, 6), sun: 'full', soil: 'loam', moisture: 'dry', label: 'Meadow bed' },
+      { id: 'rain', kind: 'bed', z: 5, points: rect(11, 8, 3.5, 3), sun: 'full', soil: 'clay', moisture: 'wet', label: 'Rain garden' },
+    ],
+    plantings: [
+      { id: 'lawn', species: 'Poa pratensis', points: rect(0, 0, 15, 14), z: 0, spacing: null, height: 0.08, label: 'Lawn' },
+      { id: 'meadow', species: 'Schizachyrium scoparium', points: rect(0.5, 0.5, 14, 6), z: 6, spacing: 0.45, height: 0.9 },
+      { id: 'asters', species: 'Symphyotrichum novae-angliae', x: 3, y: 3, count: 7, spread: 0.6, height: 1.2 },
+      { id: 'serviceberry', species: 'Amelanchier arborea', x: 1.5, y: 9, count: 1, spread: 5, height: 7 },
+      { id: 'swamp-milkweed', species: 'Asclepias incarnata', x: 12.5, y: 9.5, count: 4, spread: 0.6, height: 1.2 },
+      { id: 'hosta', species: 'Hosta plantaginea', x: 8, y: 12.5, count: 2, spread: 0.8, height: 0.5 },
+    ],
+    lines: [],
+  }
+}
+
+type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
+
+export async function loadDemoData(tx: Tx) {
+  await tx.update(organisation).set({ name: DEMO_ORGANISATION })
+  const passwordHash = await hashPassword(DEMO_PASSWORD)
+  const ids: Record<string, number> = {}
+  for (const a of DEMO_ACCOUNTS) {
+    const [existing] = await tx.select({ id: users.id }).from(users).where(eq(users.email, a.email))
+    if (existing) ids[a.role] = existing.id
+    else ids[a.role] = (await tx.insert(users).values({ ...a, passwordHash }).$returningId())[0]!.id
+  }
+  for (const doc of [demoFrontYard(), demoBackGarden()]) {
+    const id = insertedId(await tx.insert(yards).values({
+      ownerId: ids.homeowner!, name: doc.name!, region: doc.region!, zone: doc.zone ?? null, units: doc.units,
+      lastSpringFrost: doc.frost?.lastSpring ?? null, firstFallFrost: doc.frost?.firstFall ?? null, document: doc,
+    }).$returningId())
+    // the advisor helps on the first yard
+    if (doc.name === 'Larch Lane front and back') await tx.insert(yardMembers).values({ yardId: id, userId: ids.advisor!, role: 'editor' })
+  }
+}

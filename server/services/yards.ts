@@ -1,0 +1,84 @@
+import { and, eq, or, desc, inArray, sql } from 'drizzle-orm'
+import { yards, yardMembers, users } from '../database/schema'
+import { emptyYardDocument, type YardDocument } from '#shared/schemas/yard-document'
+import type { CreateYardBody, UpdateYardBody } from '#shared/schemas/yard'
+import type { AccountRow, YardRow } from '../utils/auth'
+import type { YardAccess } from './yard-access'
+
+/** The columns kept beside the document (for queries and lists) follow the document. */
+function columnsFrom(doc: YardDocument) {
+  return {
+    zone: doc.zone ?? null,
+    lastSpringFrost: doc.frost?.lastSpring ?? null,
+    firstFallFrost: doc.frost?.firstFall ?? null,
+    units: doc.units,
+  }
+}
+
+export function yardView(yard: YardRow, access: YardAccess) {
+  return {
+    id: yard.id,
+    name: yard.name,
+    region: yard.region,
+    zone: yard.zone,
+    frost: { lastSpring: yard.lastSpringFrost, firstFall: yard.firstFallFrost },
+    units: yard.units,
+    version: yard.version,
+    document: { ...yard.document, name: yard.name, region: yard.region } as YardDocument,
+    access,
+    ownerId: yard.ownerId,
+    createdAt: yard.createdAt,
+    updatedAt: yard.updatedAt,
+  }
+}
+
+export async function createYard(owner: AccountRow, body: CreateYardBody) {
+  const doc = { ...(body.document ?? emptyYardDocument()), name: body.name, region: body.region }
+  const db = useDb()
+  const id = insertedId(await db.insert(yards).values({ ownerId: owner.id, name: body.name, region: body.region, document: doc, ...columnsFrom(doc) }).$returningId())
+  const [yard] = await db.select().from(yards).where(eq(yards.id, id))
+  return yardView(yard!, 'owner')
+}
+
+/**
+ * Saves a new name and/or document when `version` is still the stored one; else 409 with the current version,
+ * so the editor can offer "load theirs" or "keep mine as a copy". The compare-and-set is one UPDATE.
+ */
+export async function updateYard(yard: YardRow, access: YardAccess, body: UpdateYardBody) {
+  const name = body.name ?? yard.name
+  const doc = body.document ? { ...body.document, name, region: body.document.region ?? yard.region } : { ...yard.document, name }
+  const db = useDb()
+  const [result] = await db.update(yards)
+    .set({ name, region: doc.region ?? yard.region, document: doc, ...columnsFrom(doc), version: sql`${yards.version} + 1` })
+    .where(and(eq(yards.id, yard.id), eq(yards.version, body.version)))
+  const [fresh] = await db.select().from(yards).where(eq(yards.id, yard.id))
+  if (result.affectedRows === 0) {
+    throw createError({
+      status: 409,
+      message: 'Someone saved this yard after you opened it',
+      data: { currentVersion: fresh?.version ?? null, fields: { version: 'Out of date' } },
+    })
+  }
+  return yardView(fresh!, access)
+}
+
+/** Yards the user owns or is a member of, newest first (without their documents). */
+export async function listYardsFor(user: AccountRow) {
+  const db = useDb()
+  const memberYardIds = db.select({ id: yardMembers.yardId }).from(yardMembers).where(eq(yardMembers.userId, user.id))
+  const rows = await db.select({
+    id: yards.id, name: yards.name, region: yards.region, zone: yards.zone, units: yards.units, version: yards.version,
+    ownerId: yards.ownerId, ownerName: users.name, updatedAt: yards.updatedAt, createdAt: yards.createdAt,
+    memberRole: yardMembers.role,
+    plantings: sql<number>`coalesce(json_length(${yards.document}, '$.plantings'), 0)`,
+  }).from(yards)
+    .innerJoin(users, eq(users.id, yards.ownerId))
+    .leftJoin(yardMembers, and(eq(yardMembers.yardId, yards.id), eq(yardMembers.userId, user.id)))
+    .where(or(eq(yards.ownerId, user.id), inArray(yards.id, memberYardIds)))
+    .orderBy(desc(yards.updatedAt))
+  return rows.map(({ memberRole, ...r }) => ({
+    ...r,
+    plantings: Number(r.plantings),
+    access: (r.ownerId === user.id ? 'owner' : memberRole === 'editor' ? 'edit' : 'view') as YardAccess,
+  }))
+}

@@ -1,0 +1,38 @@
+import mysql from 'mysql2/promise'
+import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2'
+import * as schema from '../database/schema'
+
+export { schema }
+export type Db = MySql2Database<typeof schema>
+
+let pool: mysql.Pool | undefined
+let db: Db | undefined
+
+/** The Drizzle client over one mysql2 pool per app instance (many instances may share one MariaDB). */
+export function useDb(): Db {
+  if (!db) {
+    const url = useRuntimeConfig().databaseUrl
+    if (!url) throw createError({ status: 503, message: 'The database is not configured (NUXT_DATABASE_URL)' })
+    pool = mysql.createPool({ uri: url, connectionLimit: 20, waitForConnections: true, timezone: 'Z', dateStrings: false })
+    db = drizzle(pool, { schema, mode: 'default' })
+  }
+  return db
+}
+
+export function useDbPool(): mysql.Pool {
+  useDb()
+  return pool!
+}
+
+/** Raw first row of a mysql2 result from db.execute(). */
+export function firstRow<T>(result: unknown): T | undefined {
+  const rows = (result as [unknown[]])[0]
+  return rows?.[0] as T | undefined
+}
+
+/** The id from `$returningId()` of a single-row insert (MariaDB has no RETURNING in Drizzle). */
+export function insertedId(rows: { id: number }[]): number {
+  const id = rows[0]?.id
+  if (id === undefined) throw new Error('insert returned no id')
+  return id
+}

@@ -1,0 +1,51 @@
+import type { H3Event } from 'h3'
+import type { z } from 'zod'
+
+/** Turns zod issues into `{ "plantings.3.points": "…" }`, the `fields` of our one error shape. */
+export function fieldErrors(error: z.ZodError): Record<string, string> {
+  const fields: Record<string, string> = {}
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '_'
+    fields[key] ??= issue.message
+  }
+  return fields
+}
+
+export function badRequest(fields: Record<string, string>, message?: string): never {
+  const first = Object.entries(fields)[0]
+  throw createError({
+    status: 400,
+    message: message ?? (first ? `${first[0] === '_' ? 'Input' : first[0]}: ${first[1]}` : 'Invalid input'),
+    data: { fields },
+  })
+}
+
+function check<S extends z.ZodType>(schema: S, value: unknown, prefix: string): z.infer<S> {
+  const result = schema.safeParse(value)
+  if (!result.success) {
+    const fields = fieldErrors(result.error)
+    badRequest(fields, `Invalid ${prefix}: ${Object.entries(fields).slice(0, 3).map(([k, v]) => `${k === '_' ? prefix : k}: ${v}`).join('; ')}`)
+  }
+  return result.data
+}
+
+export async function readBodyWith<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.infer<S>> {
+  let body: unknown
+  try {
+    body = await readBody(event)
+  } catch {
+    badRequest({ _: 'The request body is not valid JSON' })
+  }
+  return check(schema, body ?? {}, 'body')
+}
+
+export function readQueryWith<S extends z.ZodType>(event: H3Event, schema: S): z.infer<S> {
+  return check(schema, getQuery(event), 'query')
+}
+
+export function readParamsWith<S extends z.ZodType>(event: H3Event, schema: S): z.infer<S> {
+  const result = schema.safeParse(getRouterParams(event, { decode: true }))
+  // a malformed id cannot name anything that exists
+  if (!result.success) throw createError({ status: 404, message: 'Not found' })
+  return result.data
+}

@@ -1,0 +1,14 @@
+import type { Role } from './roles'
+
+// The session user kept in nuxt-auth-utils' sealed cookie. The role is re-read from the database on the
+// server for every check, so a role change takes effect at once.
+declare module '#auth-utils' {
+  interface User {
+    id: number
+    email: string
+    name: string
+    role: Role
+  }
+}
+
+export {}
