@@ -3,7 +3,7 @@
 // Extra arguments go to vitest (`npm test -- tests/unit`). WW_INSTANCE=name keeps parallel runs apart.
 import { join } from 'node:path'
 import { spawnSync } from 'node:child_process'
-import { rmSync } from 'node:fs'
+import { rmSync, mkdirSync } from 'node:fs'
 import {
   ROOT, DATA, log, ensureNodeModules, ensureChromium, startMariaDb, ensureDatabase, migrate, startFakeSmtp,
   build, spawnChild, stopAll, waitForHttp, freePort, waitForChildrenExit, fail,
@@ -57,7 +57,10 @@ const env = {
 
 if (process.env.WW_SKIP_TYPECHECK !== '1') {
   log('type-checking (nuxt typecheck)')
-  const r = spawnSync('npx', ['nuxt', 'typecheck'], { stdio: 'inherit', cwd: ROOT, env })
+  // typecheck reads the root tsconfig.json, which points at .nuxt/: generate there (under a lock for parallel runs)
+  const { WW_NUXT_DIR: _, ...typecheckEnv } = env
+  mkdirSync(DATA, { recursive: true })
+  const r = spawnSync('flock', [join(DATA, 'typecheck.lock'), 'npx', 'nuxt', 'typecheck'], { stdio: 'inherit', cwd: ROOT, env: typecheckEnv })
   if (r.status !== 0) fail('type errors')
 }
 if (process.env.WW_SKIP_BUILD !== '1') build(env)
