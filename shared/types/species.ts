@@ -24,3 +24,35 @@ export interface SpeciesFacts {
   estimated: Array<'spread' | 'height' | 'spacing'>
   toxic: boolean
 }
+
+export type Sun = 'full' | 'part' | 'shade'
+export type Moisture = 'dry' | 'medium' | 'wet'
+export type Soil = 'sand' | 'loam' | 'clay'
+
+/**
+ * Everything the catalogue knows of a species in one region, for species pages, fits and the seed plan.
+ * `sources` names where each fact came from ("USDA PLANTS", "coordinator", "from memory", "estimated: …").
+ */
+export interface SpeciesDetails extends SpeciesFacts {
+  family: string | null
+  growthHabit: string | null
+  bloomMonths: number[]
+  /** coldest USDA hardiness zone it survives, e.g. "4a" */
+  minZone: string | null
+  sun: Sun[]
+  moisture: Moisture[]
+  soil: Soil[]
+  toxicity: string | null
+  propagatedBySeed: boolean | null
+  coldStratification: boolean | null
+  coldMoistDays: number | null
+  seedNeedsLight: boolean | null
+  scarify: boolean
+  hotWaterSoak: boolean
+  seedsPerPound: number | null
+  seedlingsPerPot: number | null
+  commercialAvailability: string | null
+  /** plain words: "host plant for caterpillars", "seed for birds", "nectar" … */
+  wildlife: string[]
+  sources: Record<string, string>
+}
