@@ -36,6 +36,9 @@ export default defineNuxtConfig({
     loginThrottlePerEmail: 5,
     loginThrottlePerAddress: 30,
     trustProxy: false,
+    // background jobs (server/plugins/jobs.ts): how often each instance looks for due jobs; 0 turns it off
+    jobsIntervalMs: 5000,
+    jobsBatchSize: 50,
     session: {
       maxAge: 60 * 60 * 24 * 14,
       password: '',

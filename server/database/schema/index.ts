@@ -2,3 +2,6 @@
 export * from './accounts'
 export * from './yards'
 export * from './settings'
+export * from './jobs'
+export * from './advice'
+export * from './drives'
