@@ -3,6 +3,7 @@ import { and, eq, gt, isNull, sql, count } from 'drizzle-orm'
 import { createHash, randomBytes } from 'node:crypto'
 import { users, passwordResetTokens, loginFailures } from '../database/schema'
 import type { AccountRow } from '../utils/auth'
+import { acceptInvite } from './sharing'
 
 const THROTTLE_WINDOW_MS = 15 * 60 * 1000
 const RESET_TOKEN_TTL_MS = 60 * 60 * 1000
@@ -49,13 +50,15 @@ export async function signIn(event: H3Event, email: string, password: string): P
   return u
 }
 
-export async function register(input: { email: string; name: string; password: string }): Promise<AccountRow> {
+export async function register(input: { email: string; name: string; password: string; invite?: string }): Promise<AccountRow> {
   const db = useDb()
   const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email)).limit(1)
   if (existing) throw createError({ status: 409, message: 'An account with that e-mail already exists', data: { fields: { email: 'An account with that e-mail already exists — sign in or reset the password' } } })
   const passwordHash = await hashPassword(input.password)
   const id = insertedId(await db.insert(users).values({ email: input.email, name: input.name, passwordHash }).$returningId())
   const [u] = await db.select().from(users).where(eq(users.id, id))
+  // registering from an invitation link accepts it; a stale or foreign link still leaves a working account
+  if (input.invite) await acceptInvite(u!, input.invite).catch(() => undefined)
   return u!
 }
 

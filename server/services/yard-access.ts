@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm'
-import { yardMembers } from '../database/schema'
+import { yardMembers, adviceRequests, pledges } from '../database/schema'
 import type { AccountRow, YardRow } from '../utils/auth'
 
 export type YardAccess = 'view' | 'edit' | 'owner'
@@ -12,6 +12,16 @@ export async function yardAccessLevel(user: AccountRow, yard: YardRow): Promise<
   if (yard.ownerId === user.id) return 'owner'
   const [member] = await useDb().select({ role: yardMembers.role }).from(yardMembers)
     .where(and(eq(yardMembers.yardId, yard.id), eq(yardMembers.userId, user.id))).limit(1)
-  if (member) return member.role === 'editor' ? 'edit' : 'view'
+  if (member?.role === 'editor') return 'edit'
+  // an advisor assigned to a request edits the yard until the request is closed
+  const [assigned] = await useDb().select({ id: adviceRequests.id }).from(adviceRequests)
+    .where(and(eq(adviceRequests.yardId, yard.id), eq(adviceRequests.advisorId, user.id), eq(adviceRequests.status, 'assigned'))).limit(1)
+  if (assigned) return 'edit'
+  if (member) return 'view'
+  // coordinators look at (never change) every pledged yard
+  if (user.role === 'coordinator') {
+    const [pledged] = await useDb().select({ id: pledges.id }).from(pledges).where(eq(pledges.yardId, yard.id)).limit(1)
+    if (pledged) return 'view'
+  }
   return null
 }
