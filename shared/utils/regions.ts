@@ -13,6 +13,8 @@ export const REGIONS: Record<string, string> = {
   'US-WA': 'Washington', 'US-WV': 'West Virginia', 'US-WI': 'Wisconsin', 'US-WY': 'Wyoming',
   'US-PR': 'Puerto Rico', 'US-VI': 'Virgin Islands', 'US-GU': 'Guam', 'US-AS': 'American Samoa',
   'US-MP': 'Northern Mariana Islands', 'US-UM': 'U.S. Minor Outlying Islands',
+  // freely associated states in USDA's distribution file: USPS codes, as ISO 3166-2 has no US subdivision for them
+  'US-PW': 'Palau', 'US-MH': 'Marshall Islands', 'US-FM': 'Federated States of Micronesia',
   'CA-AB': 'Alberta', 'CA-BC': 'British Columbia', 'CA-MB': 'Manitoba', 'CA-NB': 'New Brunswick',
   'CA-NL': 'Newfoundland and Labrador', 'CA-NS': 'Nova Scotia', 'CA-NT': 'Northwest Territories',
   'CA-NU': 'Nunavut', 'CA-ON': 'Ontario', 'CA-PE': 'Prince Edward Island', 'CA-QC': 'Quebec',
