@@ -60,6 +60,22 @@ export const yardPlanting = z.object({
   else if (!isPoint && !p.points) ctx.addIssue({ code: 'custom', message: 'A planting needs a position (x, y) or an outline (points)' })
 })
 
+/**
+ * An element of a list whose errors name it: the path stays `plantings.3.points`, the message gains
+ * `Planting "p4": …`, so a 400 for a yard of a thousand plantings says which one is wrong.
+ */
+function named<S extends z.ZodType>(schema: S, noun: string) {
+  return z.custom<z.input<S>>(() => true).transform((value, ctx): z.output<S> => {
+    const result = schema.safeParse(value)
+    if (result.success) return result.data
+    const id = typeof (value as { id?: unknown } | null)?.id === 'string' ? (value as { id: string }).id : null
+    for (const issue of result.error.issues) {
+      ctx.addIssue({ code: 'custom', path: issue.path as PropertyKey[], message: `${noun}${id ? ` "${id}"` : ''}: ${issue.message}`, input: value })
+    }
+    return z.NEVER
+  })
+}
+
 export const yardLine = z.object({
   id: elementId,
   // overhead wires and buried services drive the cautions about trees and digging
@@ -88,15 +104,15 @@ export const yardDocument = z.object({
   boundary: z.array(point).max(MAX_VERTICES).refine((pts) => pts.length === 0 || pts.length >= 3, 'A lot outline needs at least 3 points')
     .refine((pts) => pts.length === 0 || firstSelfIntersection(pts as Point[]) < 0, 'The lot outline crosses itself or has no area')
     .default([]),
-  areas: z.array(yardArea).max(MAX_AREAS, `A yard has at most ${MAX_AREAS} areas`).default([]),
-  plantings: z.array(yardPlanting).max(MAX_PLANTINGS, `A yard has at most ${MAX_PLANTINGS} plantings`).default([]),
-  lines: z.array(yardLine).max(500).default([]),
+  areas: z.array(named(yardArea, 'Area')).max(MAX_AREAS, `A yard has at most ${MAX_AREAS} areas`).default([]),
+  plantings: z.array(named(yardPlanting, 'Planting')).max(MAX_PLANTINGS, `A yard has at most ${MAX_PLANTINGS} plantings`).default([]),
+  lines: z.array(named(yardLine, 'Line')).max(500).default([]),
   backdrop: yardBackdrop.nullable().optional(),
 }).superRefine((doc, ctx) => {
   const seen = new Set<string>()
   for (const [list, items] of [['areas', doc.areas], ['plantings', doc.plantings], ['lines', doc.lines]] as const) {
     items.forEach((item, i) => {
-      if (seen.has(item.id)) ctx.addIssue({ code: 'custom', path: [list, i, 'id'], message: `Duplicate element id "${item.id}"` })
+      if (seen.has(item.id)) ctx.addIssue({ code: 'custom', path: [list, i, 'id'], message: `Duplicate element id "${item.id}"`, input: item.id })
       seen.add(item.id)
     })
   }

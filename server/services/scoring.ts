@@ -1,0 +1,188 @@
+// The native-share engine: footprints, layers, ground-layer cutting, the three shares and the moves to the goal.
+// `scoreYard` is pure (the facts and goal are passed in); `scoreDocument` loads them for a saved or posted yard.
+import { isAreaPlanting, type YardDocument, type YardPlanting } from '#shared/schemas/yard-document'
+import type { Layer, PlantingStatus, SpeciesFacts } from '#shared/types/species'
+import type { Score, ScoreWarning, Shares, ShareKind, Totals } from '#shared/schemas/score'
+import { circleAreaInLot, cutterOf, shapeOf, visibleArea, ringInLot, type Cutter, type Ring, type Shape } from '#shared/utils/geometry'
+import { pointInRing } from '#shared/utils/polygon'
+import { plantsNeeded } from '#shared/utils/plant-count'
+import { regionName } from '#shared/utils/regions'
+import { movesToGoal } from './moves'
+
+/**
+ * Sizes assumed when neither the planting nor the catalogue gives one, and for plants a move adds
+ * (from memory, common practice for nursery stock at maturity): spread and height in metres, drift spacing.
+ */
+export const TYPICAL_SIZE: Record<Layer, { spread: number; height: number; spacing: number | null }> = {
+  tree: { spread: 8, height: 12, spacing: null },
+  shrub: { spread: 1.5, height: 1.5, spacing: null },
+  ground: { spread: 0.45, height: 0.6, spacing: 0.45 },
+}
+
+/** Everything the engine works out for one planting (areas in m², volumes in m³, before rounding). */
+export interface PlantingMeasure {
+  index: number
+  id: string
+  name: string
+  status: PlantingStatus
+  layer: Layer
+  isArea: boolean
+  lawn: boolean
+  cultivar: boolean
+  count: number | null
+  area: number
+  volume: number
+  spread: number | null
+  height: number
+  spacing: number | null
+}
+
+export interface MeasuredYard {
+  doc: YardDocument
+  region: string | null
+  lot: Shape | null
+  plantings: PlantingMeasure[]
+  warnings: ScoreWarning[]
+}
+
+export const factsKey = (species: string) => species.trim().toLowerCase()
+
+// unidentified plants: a layer from their size (tree ≥ 6 m tall, shrub ≥ 1 m; common practice)
+function layerBySize(p: YardPlanting): Layer {
+  if (isAreaPlanting(p)) return 'ground'
+  const size = p.height ?? p.spread
+  if (size === undefined) return 'shrub'
+  return size >= 6 ? 'tree' : size >= 1 ? 'shrub' : 'ground'
+}
+
+type Drawn = { order: [number, number, number]; ring: Ring; plantingIndex: number | null }
+
+/**
+ * For each ground-layer area planting, the shapes drawn above it: anything with a higher z, and at equal z
+ * the later one (areas sit under plantings of the same z, so a drift drawn in its bed stays visible).
+ */
+export function groundCutters(doc: YardDocument, isGroundArea: (index: number) => boolean): Map<number, Cutter[]> {
+  const drawn: Drawn[] = []
+  doc.areas.forEach((a, i) => drawn.push({ order: [a.z ?? 0, 0, i], ring: a.points as Ring, plantingIndex: null }))
+  doc.plantings.forEach((p, i) => {
+    if (isAreaPlanting(p) && isGroundArea(i)) drawn.push({ order: [p.z ?? 0, 1, i], ring: p.points as Ring, plantingIndex: i })
+  })
+  drawn.sort((a, b) => a.order[0] - b.order[0] || a.order[1] - b.order[1] || a.order[2] - b.order[2])
+  const out = new Map<number, Cutter[]>()
+  const cutters = drawn.map((d) => cutterOf(d.ring))
+  drawn.forEach((d, k) => { if (d.plantingIndex !== null) out.set(d.plantingIndex, cutters.slice(k + 1)) })
+  return out
+}
+
+export function lotShape(doc: YardDocument): Shape | null {
+  return doc.boundary.length >= 3 ? shapeOf(doc.boundary as Ring) : null
+}
+
+/** Status, layer and footprint of every planting. */
+export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, regionArg?: string | null): MeasuredYard {
+  const region = regionArg ?? doc.region ?? null
+  const warnings: ScoreWarning[] = []
+  if (!region) warnings.push({ id: 'region', message: 'The yard has no state or province, so no plant can be counted as native yet' })
+  const lot = lotShape(doc)
+  const where = region ? regionName(region) : 'this region'
+
+  const factsOf = doc.plantings.map((p) => (p.species ? facts.get(factsKey(p.species)) : undefined))
+  const layers = doc.plantings.map((p, i) => factsOf[i]?.layer ?? layerBySize(p))
+  const cutters = groundCutters(doc, (i) => layers[i] === 'ground')
+
+  const plantings = doc.plantings.map((p, index): PlantingMeasure => {
+    const f = factsOf[index]
+    const layer = layers[index]!
+    let status: PlantingStatus = 'unknown'
+    if (p.species && !region) status = 'unknown'
+    else if (p.species && !f) warnings.push({ id: p.id, message: `"${p.species}" is not in the species catalogue, so it counts as unknown (not native)` })
+    else if (f && f.status === 'absent') {
+      status = 'introduced'
+      warnings.push({ id: p.id, message: `${f.scientificName} is not recorded in ${where}, so it counts as introduced` })
+    } else if (f) status = f.status as PlantingStatus
+    const name = f?.commonName ?? f?.scientificName ?? p.species ?? p.label ?? 'unidentified plant'
+    const cultivar = typeof p.cultivar === 'string' && p.cultivar.length > 0
+    const typical = TYPICAL_SIZE[layer]
+    const height = p.height ?? f?.height ?? typical.height
+    if (p.height === undefined && (!f || f.estimated.includes('height'))) warnings.push({ id: p.id, message: `The height of ${name} is an estimate (${height} m); measure or check it` })
+    const base = { index, id: p.id, name, status, layer, cultivar, height, lawn: false }
+
+    if (isAreaPlanting(p)) {
+      const spacing = p.spacing !== undefined ? p.spacing : f ? f.spacing : null
+      const ring = p.points as Ring
+      const area = layer === 'ground' ? visibleArea(ring, lot, cutters.get(index) ?? []).area : ringInLot(ring, lot).area
+      if (area === 0) warnings.push({ id: p.id, message: layer === 'ground' ? `${name} is outside the lot or wholly covered by shapes drawn above it, so it counts nothing` : `${name} is outside the lot, so it counts nothing` })
+      return { ...base, isArea: true, lawn: f?.lawn === true, spread: null, spacing, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height }
+    }
+    const spread = p.spread ?? f?.spread ?? typical.spread
+    if (p.spread === undefined && (!f || f.estimated.includes('spread'))) warnings.push({ id: p.id, message: `The spread of ${name} is an estimate (${spread} m); measure or check it` })
+    const count = p.count ?? 1
+    // a clump of n plants is one disc of n plants' footprint, centred on the planting
+    const area = circleAreaInLot(p.x!, p.y!, (spread / 2) * Math.sqrt(count), lot)
+    const centreIn = !lot || pointInRing([p.x!, p.y!], lot.ring)
+    if (!centreIn) warnings.push({ id: p.id, message: `${name} stands outside the lot, so its plants are not counted` })
+    return { ...base, isArea: false, spread, spacing: null, count: centreIn ? count : 0, area, volume: area * height }
+  })
+  return { doc, region, lot, plantings, warnings }
+}
+
+export const round3 = (x: number) => Math.round(x * 1000) / 1000
+const SHARE_FIELDS: ShareKind[] = ['count', 'area', 'volume']
+
+export function contribution(p: PlantingMeasure, share: ShareKind): number {
+  return share === 'count' ? (p.count ?? 0) : share === 'area' ? p.area : p.volume
+}
+
+function sharesOf(plantings: PlantingMeasure[], isNative: (p: PlantingMeasure) => boolean): Shares {
+  const out = {} as Shares
+  for (const s of SHARE_FIELDS) {
+    let native = 0
+    let total = 0
+    for (const p of plantings) {
+      const c = contribution(p, s)
+      total += c
+      if (isNative(p)) native += c
+    }
+    out[s] = { native: round3(native), total: round3(total), share: total > 0 ? native / total : null }
+  }
+  return out
+}
+
+/** The score of a yard document for a region, from species facts keyed by lower-case name, against `goal`. */
+export function scoreYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, goal: number, region?: string | null): Score {
+  const measured = measureYard(doc, facts, region)
+  const { plantings, warnings } = measured
+  const zero = (): Totals => ({ count: 0, area: 0, volume: 0 })
+  const byStatus: Score['byStatus'] = { native: zero(), introduced: zero(), invasive: zero(), nativeAndIntroduced: zero(), unknown: zero() }
+  for (const p of plantings) {
+    const t = byStatus[p.status]
+    t.count += p.count ?? 0
+    t.area += p.area
+    t.volume += p.volume
+  }
+  for (const t of Object.values(byStatus)) { t.area = round3(t.area); t.volume = round3(t.volume) }
+  const { moves, warnings: moveWarnings } = movesToGoal(measured, goal)
+  return {
+    goal,
+    shares: sharesOf(plantings, (p) => p.status === 'native'),
+    byStatus,
+    straightSpecies: sharesOf(plantings, (p) => p.status === 'native' && !p.cultivar),
+    plantings: plantings.map((p) => ({ id: p.id, status: p.status, layer: p.layer, count: p.count, area: round3(p.area), volume: round3(p.volume), cultivar: p.cultivar })),
+    moves,
+    warnings: [...warnings, ...moveWarnings],
+  }
+}
+
+/** The score of a document, with facts from the species catalogue and the organisation's goal. */
+export async function scoreDocument(doc: YardDocument, region?: string | null): Promise<Score> {
+  const where = region ?? doc.region ?? null
+  const names = new Set<string>()
+  for (const p of doc.plantings) if (p.species) names.add(factsKey(p.species))
+  // loaded on first use so the pure engine can be imported without the database layer
+  const [{ loadSpeciesFacts }, { organisationGoal }] = await Promise.all([import('./species-lookup'), import('./organisation')])
+  const [facts, goal] = await Promise.all([
+    where && names.size ? loadSpeciesFacts(names, where) : Promise.resolve(new Map<string, SpeciesFacts>()),
+    organisationGoal(),
+  ])
+  return scoreYard(doc, facts, goal, where)
+}

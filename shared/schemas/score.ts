@@ -1,0 +1,55 @@
+import { z } from 'zod'
+import { LAYERS } from '../types/species'
+
+// The score of a yard, as POST /api/score and GET /api/yards/[id]/score answer it. Areas in m², volumes in m³.
+
+export const SHARE_KINDS = ['count', 'area', 'volume'] as const
+export type ShareKind = (typeof SHARE_KINDS)[number]
+
+export const SCORE_STATUSES = ['native', 'introduced', 'invasive', 'nativeAndIntroduced', 'unknown'] as const
+export const MOVE_KINDS = ['replace-invasive', 'convert-lawn', 'add-plants'] as const
+export type MoveKind = (typeof MOVE_KINDS)[number]
+
+/** native / total, and the share (null when there is nothing to share). */
+export const shareSchema = z.strictObject({ native: z.number(), total: z.number(), share: z.number().nullable() })
+export const sharesSchema = z.strictObject({ count: shareSchema, area: shareSchema, volume: shareSchema })
+export const totalsSchema = z.strictObject({ count: z.number(), area: z.number(), volume: z.number() })
+
+export const scoredPlantingSchema = z.strictObject({
+  id: z.string(),
+  status: z.enum(SCORE_STATUSES),
+  layer: z.enum(LAYERS),
+  /** plants (null for a sown or sodded area: it is left out of the count share) */
+  count: z.number().nullable(),
+  area: z.number(),
+  volume: z.number(),
+  cultivar: z.boolean(),
+})
+
+export const moveSchema = z.strictObject({
+  share: z.enum(SHARE_KINDS),
+  kind: z.enum(MOVE_KINDS),
+  amount: z.number(),
+  unit: z.enum(['m2', 'plants']),
+  text: z.string(),
+})
+
+export const scoreSchema = z.strictObject({
+  goal: z.number(),
+  shares: sharesSchema,
+  byStatus: z.strictObject({
+    native: totalsSchema, introduced: totalsSchema, invasive: totalsSchema, nativeAndIntroduced: totalsSchema, unknown: totalsSchema,
+  }),
+  straightSpecies: sharesSchema,
+  plantings: z.array(scoredPlantingSchema),
+  moves: z.array(moveSchema),
+  warnings: z.array(z.strictObject({ id: z.string(), message: z.string() })),
+})
+
+export type Share = z.infer<typeof shareSchema>
+export type Shares = z.infer<typeof sharesSchema>
+export type Totals = z.infer<typeof totalsSchema>
+export type ScoredPlanting = z.infer<typeof scoredPlantingSchema>
+export type Move = z.infer<typeof moveSchema>
+export type ScoreWarning = z.infer<typeof scoreSchema>['warnings'][number]
+export type Score = z.infer<typeof scoreSchema>
