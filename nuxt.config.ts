@@ -33,6 +33,8 @@ export default defineNuxtConfig({
     demoData: false,
     uploadDir: '.data/uploads',
     uploadDriver: 'fs',
+    // for uploadDriver 's3': an S3-compatible bucket (NUXT_UPLOAD_S3_ENDPOINT, _BUCKET, _REGION, _ACCESS_KEY_ID, _SECRET_ACCESS_KEY)
+    uploadS3: { endpoint: '', region: '', bucket: '', accessKeyId: '', secretAccessKey: '' },
     loginThrottlePerEmail: 5,
     loginThrottlePerAddress: 30,
     trustProxy: false,
