@@ -39,7 +39,8 @@ function lawnRate(share: ShareKind, lawn: PlantingMeasure, goal: number): number
   return drift.height * (1 - goal) + goal * lawn.height
 }
 
-const ceilTenth = (x: number) => Math.ceil((x + 1e-6) * 10) / 10
+// rounded up to 0.1 m² so that the amount shown still closes the gap (less floating-point dust)
+const ceilTenth = (x: number) => Math.ceil(x * 10 - 1e-9) / 10
 // metres first (the amount's unit), the yard's own units beside when it is drawn in feet
 const areaWords = (m2: number, units: Units) => `${formatArea(m2, 'm', m2 < 10 ? 1 : 0)}${units === 'ft' ? ` (${formatArea(m2, 'ft')})` : ''}`
 

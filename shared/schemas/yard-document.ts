@@ -18,6 +18,7 @@ const elementId = z.string().min(1).max(64)
 
 const ring = z.array(point).min(3, 'A shape needs at least 3 points').max(MAX_VERTICES)
   .superRefine((pts, ctx) => {
+    if (pts.length < 3) return
     const edge = firstSelfIntersection(pts as Point[])
     if (edge >= 0) ctx.addIssue({ code: 'custom', message: `The outline crosses itself (edge ${edge + 1}) or has no area` })
   })

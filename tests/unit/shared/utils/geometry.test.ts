@@ -1,0 +1,134 @@
+import { describe, it, expect } from 'vitest'
+import polygonClipping from 'polygon-clipping'
+import turfArea from '@turf/area'
+import {
+  CIRCLE_SEGMENTS, circleRing, circleAreaInLot, circleInside, cutterOf, multiPolygonArea, ringArea, ringInLot, ringInside,
+  ringsApart, roomiestPoint, shapeOf, visibleArea, visibleGeometry, boxOf, isConvex, type Ring,
+} from '#shared/utils/geometry'
+import { METRES_PER_FOOT, SQUARE_METRES_PER_SQUARE_FOOT, fromDisplayLength } from '#shared/utils/units'
+
+const rect = (x: number, y: number, w: number, h: number): Ring => [[x, y], [x + w, y], [x + w, y + h], [x, y + h]]
+// polygon-clipping as the independent reference for every boolean operation
+const pcArea = (mp: ReturnType<typeof polygonClipping.intersection>) => multiPolygonArea(mp as never)
+const L_LOT: Ring = [[0, 0], [20, 0], [20, 10], [10, 10], [10, 20], [0, 20]]
+
+describe('polygon areas', () => {
+  it('matches a hand-worked shoelace example', () => {
+    // hand-worked shoelace: (1,1) (5,1) (6,4) (2,5) → ½|1·1−5·1 + 5·4−6·1 + 6·5−2·4 + 2·1−1·5| = ½|−4+14+22−3| = 14.5
+    expect(ringArea([[1, 1], [5, 1], [6, 4], [2, 5]])).toBeCloseTo(14.5, 12)
+    expect(ringInLot([[1, 1], [5, 1], [6, 4], [2, 5]], null).area).toBeCloseTo(14.5, 12)
+  })
+
+  it('clips to the lot as polygon-clipping does, inside, across and outside the outline', () => {
+    const lot = shapeOf(rect(0, 0, 10, 10))
+    // wholly inside: answered without clipping, equal to polygon-clipping's intersection
+    expect(ringInLot(rect(2, 2, 3, 4), lot)).toMatchObject({ area: 12, whole: true })
+    // hand-worked: a 4 × 4 bed from x = 8 to 12 keeps 2 × 4 = 8 m² inside a 10 m lot
+    const across = rect(8, 2, 4, 4)
+    expect(ringInLot(across, lot).area).toBeCloseTo(8, 9)
+    expect(ringInLot(across, lot).area).toBeCloseTo(pcArea(polygonClipping.intersection([across], [lot.ring])), 9)
+    expect(ringInLot(rect(11, 0, 2, 2), lot).area).toBe(0)
+    // a concave (L-shaped) lot: the bed over the notch loses the notch, against polygon-clipping
+    const l = shapeOf(L_LOT)
+    expect(isConvex(L_LOT)).toBe(false)
+    const overNotch = rect(5, 5, 10, 10)
+    const expected = pcArea(polygonClipping.intersection([overNotch], [L_LOT]))
+    expect(expected).toBeCloseTo(75, 9) // hand-worked: 100 m² less the 5 × 5 notch corner
+    expect(ringInLot(overNotch, l).area).toBeCloseTo(expected, 9)
+    expect(ringInLot(rect(1, 1, 3, 3), l).whole).toBe(true)
+  })
+
+  it('agrees with @turf/area for a lot converted to longitude and latitude near 40° N', () => {
+    // @turf/area v7, sphere of radius 6,371,008.8 m: a 0.0001° square with its south-west corner at 40° N is 94.7163 m²
+    const square = [[-83, 40], [-82.9999, 40], [-82.9999, 40.0001], [-83, 40.0001], [-83, 40]]
+    expect(turfArea({ type: 'Polygon', coordinates: [square] })).toBeCloseTo(94.7163, 3)
+    const R = 6_371_008.8
+    const deg = Math.PI / 180
+    // local plane (x right, y down) to longitude/latitude around an origin at 40° N
+    const toLonLat = ([x, y]: [number, number], lat0 = 40.001, lon0 = -83): [number, number] =>
+      [lon0 + x / (R * Math.cos(lat0 * deg)) / deg, lat0 - y / R / deg]
+    const lot: Ring = [[0, 0], [22.5, 0], [24, 31], [3, 36.5], [-1, 12]]
+    const lonLat = [...lot, lot[0]!].map((p) => toLonLat(p))
+    const sphere = turfArea({ type: 'Polygon', coordinates: [lonLat] })
+    expect(Math.abs(ringArea(lot) - sphere) / sphere).toBeLessThan(1e-4)
+  })
+
+  it('converts feet exactly', () => {
+    // international foot (1959): 1 ft = 0.3048 m exactly; 1 sq ft = 0.09290304 m²
+    expect(METRES_PER_FOOT).toBe(0.3048)
+    expect(SQUARE_METRES_PER_SQUARE_FOOT).toBeCloseTo(0.09290304, 15)
+    // a 60 ft × 120 ft lot = 7,200 sq ft = 668.901888 m² (7,200 × 0.09290304)
+    const lot = rect(0, 0, 60, 120).map(([x, y]) => [fromDisplayLength(x, 'ft'), fromDisplayLength(y, 'ft')] as [number, number])
+    expect(ringArea(lot)).toBeCloseTo(668.901888, 9)
+  })
+})
+
+describe('circles', () => {
+  it('draws circles fine enough for < 0.1 % area error, and caches them', () => {
+    // a regular n-gon inscribed in a circle has area (n/2)·r²·sin(2π/n): at n = 96 that is 0.071 % short
+    const inscribed = (CIRCLE_SEGMENTS / 2) * Math.sin((2 * Math.PI) / CIRCLE_SEGMENTS)
+    expect(1 - inscribed / Math.PI).toBeLessThan(0.001)
+    const ring = circleRing(3, 4, 2.5)
+    expect(Math.abs(ringArea(ring) - Math.PI * 6.25) / (Math.PI * 6.25)).toBeLessThan(0.001)
+    expect(circleRing(3, 4, 2.5)).toBe(ring)
+  })
+
+  it('clips a circle to the lot within 0.1 % of the circular segment formula', () => {
+    const lot = shapeOf(rect(0, 0, 10, 10))
+    // wholly inside: π r² exactly
+    expect(circleAreaInLot(5, 5, 2, lot)).toBe(Math.PI * 4)
+    expect(circleInside(5, 5, 5, lot)).toBe(true)
+    // centre 1 m inside the edge, r = 2: the part beyond the chord is r²·acos(d/r) − d·√(r² − d²) (circular segment)
+    const r = 2
+    const d = 1
+    const segment = r * r * Math.acos(d / r) - d * Math.sqrt(r * r - d * d)
+    const expected = Math.PI * r * r - segment
+    expect(Math.abs(circleAreaInLot(1, 5, r, lot) - expected) / expected).toBeLessThan(0.001)
+    // centred on the edge: half the circle
+    expect(Math.abs(circleAreaInLot(0, 5, r, lot) - (Math.PI * r * r) / 2) / ((Math.PI * r * r) / 2)).toBeLessThan(0.001)
+    expect(circleAreaInLot(-3, 5, 2, lot)).toBe(0)
+    expect(circleAreaInLot(-3, 5, 2, null)).toBe(Math.PI * 4)
+  })
+
+  it('finds room for new plants', () => {
+    const { point, clearance } = roomiestPoint(shapeOf(rect(0, 0, 10, 10)))
+    expect(clearance).toBeGreaterThan(4.7)
+    expect(circleInside(point[0], point[1], clearance, shapeOf(rect(0, 0, 10, 10)))).toBe(true)
+  })
+})
+
+describe('ground-layer cutting', () => {
+  const lot = shapeOf(rect(0, 0, 10, 10))
+  const lawn = rect(0, 0, 10, 10)
+
+  it('takes beds drawn above the lawn out of it, exactly when they lie inside', () => {
+    // hand-worked: 100 m² lawn less a 2 × 3 bed and a 4 × 1 path = 90 m²
+    expect(visibleArea(lawn, lot, [cutterOf(rect(1, 1, 2, 3)), cutterOf(rect(5, 5, 4, 1))]).area).toBeCloseTo(90, 9)
+  })
+
+  it('matches polygon-clipping when cutters cross the edge or overlap each other', () => {
+    const cutters = [rect(8, 8, 4, 4), rect(1, 1, 3, 3), rect(2, 2, 3, 3), [[5, 0], [7, 3], [6, 5]] as Ring]
+    const expected = pcArea(polygonClipping.difference(polygonClipping.intersection([lawn], [lot.ring]), ...cutters.map((c) => [c])))
+    // hand-worked: 100 − 4 (corner) − (9 + 9 − 4) (overlapping beds) − ½|15 + 17 − 25| (triangle, shoelace) = 78.5
+    expect(expected).toBeCloseTo(78.5, 9)
+    expect(visibleArea(lawn, lot, cutters.map(cutterOf)).area).toBeCloseTo(expected, 9)
+    expect(multiPolygonArea(visibleGeometry(lawn, lot, cutters.map(cutterOf)))).toBeCloseTo(expected, 9)
+  })
+
+  it('handles a lawn in a concave lot', () => {
+    const l = shapeOf(L_LOT)
+    const cutters = [rect(8, 8, 4, 4), rect(1, 1, 2, 2)]
+    const expected = pcArea(polygonClipping.difference(polygonClipping.intersection([rect(0, 0, 20, 20)], [L_LOT]), ...cutters.map((c) => [c])))
+    expect(visibleArea(rect(0, 0, 20, 20), l, cutters.map(cutterOf)).area).toBeCloseTo(expected, 9)
+  })
+
+  it('tells inside and apart only when sure', () => {
+    const square = shapeOf(rect(0, 0, 4, 4))
+    expect(ringInside(rect(0, 0, 2, 2), boxOf(rect(0, 0, 2, 2)), square)).toBe(true)
+    expect(ringInside(rect(3, 3, 2, 2), boxOf(rect(3, 3, 2, 2)), square)).toBe(false)
+    expect(ringsApart(rect(4, 0, 2, 2), boxOf(rect(4, 0, 2, 2)), square)).toBe(true)
+    expect(ringsApart(rect(3, 3, 2, 2), boxOf(rect(3, 3, 2, 2)), square)).toBe(false)
+    // a ring holding the other is not apart from it
+    expect(ringsApart(rect(-1, -1, 6, 6), boxOf(rect(-1, -1, 6, 6)), square)).toBe(false)
+  })
+})
