@@ -96,3 +96,64 @@ export async function loadDemoData(tx: Tx) {
     if (doc.name === 'Larch Lane front and back') await tx.insert(yardMembers).values({ yardId: id, userId: ids.advisor!, role: 'editor' })
   }
 }
+
+// The demo pledge drive: running now, with the demo homeowner's two yards and four invented households pledged,
+// and a snapshot at each pledge and one after planting, so the dashboard's charts have real history.
+const DEMO_HOUSEHOLDS = [
+  { email: 'household-penhallow@example.org', name: 'Ash Penhallow', neighbourhood: 'Millrace', bed: 0.2, daysAgo: 36 },
+  { email: 'household-marchbank@example.org', name: 'Lee Marchbank', neighbourhood: 'Millrace', bed: 0.75, daysAgo: 30 },
+  { email: 'household-greaves@example.org', name: 'Toni Greaves', neighbourhood: 'Larch Hill', bed: 0.5, daysAgo: 21 },
+  { email: 'household-oldacre@example.org', name: 'Kit Oldacre', neighbourhood: 'Larch Hill', bed: 0.85, daysAgo: 12 },
+] as const
+
+/** A 20 m × 30 m lot of lawn with a house and a native meadow bed covering `share` of the open ground. */
+function demoHouseholdYard(name: string, share: number): YardDocument {
+  const depth = Math.max(1, Math.round(18 * share * 10) / 10)
+  return {
+    format: YARD_FORMAT, name, region: 'US-OH', zone: '6a', units: 'ft', boundary: rect(0, 0, 20, 30),
+    areas: [{ id: 'house', kind: 'building', z: 10, points: rect(3, 20, 14, 8), label: 'House' }, { id: 'bed', kind: 'bed', z: 5, points: rect(0, 0, 20, depth), label: 'Meadow bed' }],
+    plantings: [
+      { id: 'lawn', species: 'Poa pratensis', points: rect(0, 0, 20, 30), z: 0, spacing: null, height: 0.08, label: 'Lawn' },
+      { id: 'meadow', species: 'Carex pensylvanica', points: rect(0, 0, 20, depth), z: 6, spacing: 0.3, height: 0.2 },
+    ],
+    lines: [],
+  }
+}
+
+export async function loadDemoDrive(tx: Tx) {
+  const { drives, pledges, shareSnapshots } = await import('../database/schema')
+  const { yardShares } = await import('./drives')
+  const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10)
+  const driveId = insertedId(await tx.insert(drives).values({ name: `${DEMO_TOWN} native yards pledge`, startsOn: day(-45), endsOn: day(140), goal: 0.7, certifies: 'area', target: 25 }).$returningId())
+  const [owner] = await tx.select({ id: users.id }).from(users).where(eq(users.email, DEMO_ACCOUNTS[0].email))
+  const entries: Array<{ yardId: number; userId: number; region: string; before: YardDocument; after: YardDocument; neighbourhood: string; daysAgo: number }> = []
+  if (owner) {
+    for (const y of await tx.select().from(yards).where(eq(yards.ownerId, owner.id))) {
+      const front = y.name === 'Larch Lane front and back'
+      entries.push({ yardId: y.id, userId: owner.id, region: y.region, before: y.document, after: y.document, neighbourhood: front ? 'Larch Hill' : 'Millrace', daysAgo: front ? 40 : 27 })
+    }
+  }
+  const passwordHash = await hashPassword(`not-a-login-${Math.random()}-${Date.now()}`)
+  for (const h of DEMO_HOUSEHOLDS) {
+    const [existing] = await tx.select({ id: users.id }).from(users).where(eq(users.email, h.email))
+    const userId = existing?.id ?? insertedId(await tx.insert(users).values({ email: h.email, name: h.name, passwordHash }).$returningId())
+    const after = demoHouseholdYard(`${h.name.split(' ')[1]} yard`, h.bed)
+    const yardId = insertedId(await tx.insert(yards).values({ ownerId: userId, name: after.name!, region: 'US-OH', zone: '6a', units: 'ft', document: after }).$returningId())
+    entries.push({ yardId, userId, region: 'US-OH', before: demoHouseholdYard(after.name!, 0.1), after, neighbourhood: h.neighbourhood, daysAgo: h.daysAgo })
+  }
+  for (const e of entries) {
+    const cols = (s: Awaited<ReturnType<typeof yardShares>>) => ({
+      countNative: s.shares.count.native, countTotal: s.shares.count.total, countShare: s.shares.count.share ?? 0,
+      areaNative: s.shares.area.native, areaTotal: s.shares.area.total, areaShare: s.shares.area.share ?? 0,
+      volumeNative: s.shares.volume.native, volumeTotal: s.shares.volume.total, volumeShare: s.shares.volume.share ?? 0, lawnArea: s.lawnArea,
+    })
+    const before = cols(await yardShares(e.before, e.region))
+    const after = cols(await yardShares(e.after, e.region))
+    await tx.insert(pledges).values({
+      driveId, yardId: e.yardId, userId: e.userId, neighbourhood: e.neighbourhood, consent: true, pledgedOn: day(-e.daysAgo), ...after,
+      status: after.areaShare >= 0.7 ? 'reached' : 'pledged', baseAreaNative: before.areaNative, baseLawnArea: before.lawnArea, baseShare: before.areaShare,
+    })
+    await tx.insert(shareSnapshots).values({ yardId: e.yardId, day: day(-e.daysAgo), ...before })
+    if (e.after !== e.before) await tx.insert(shareSnapshots).values({ yardId: e.yardId, day: day(-Math.floor(e.daysAgo / 2)), ...after })
+  }
+}

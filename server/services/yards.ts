@@ -4,6 +4,7 @@ import { emptyYardDocument, type YardDocument } from '#shared/schemas/yard-docum
 import type { CreateYardBody, UpdateYardBody } from '#shared/schemas/yard'
 import type { AccountRow, YardRow } from '../utils/auth'
 import type { YardAccess } from './yard-access'
+import { recordPledgedShares } from './drives'
 
 /** The columns kept beside the document (for queries and lists) follow the document. */
 function columnsFrom(doc: YardDocument) {
@@ -59,6 +60,8 @@ export async function updateYard(yard: YardRow, access: YardAccess, body: Update
       data: { currentVersion: fresh?.version ?? null, fields: { version: 'Out of date' } },
     })
   }
+  // a pledged yard keeps its drive shares current and gets the day's snapshot; the save stands even if this fails
+  await recordPledgedShares(fresh!).catch((e) => console.error('[wildward] pledge shares after save:', (e as Error).message))
   return yardView(fresh!, access)
 }
 

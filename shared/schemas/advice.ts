@@ -85,6 +85,6 @@ export const acceptBody = z.object({
 })
 export const declineBody = z.object({ reason: z.string().trim().min(1, 'Say in a word why not').max(500) })
 
-export interface ShareFigures { native: number; total: number; share: number }
+export interface ShareFigures { native: number; total: number; share: number | null }
 export interface ShareSet { count: ShareFigures; area: ShareFigures; volume: ShareFigures }
 export interface PredictedShares { before: ShareSet; after: ShareSet }
