@@ -9,6 +9,8 @@ export interface NavItem {
 // The signed-in navigation; an item without roles is for everyone signed in.
 const ITEMS: NavItem[] = [
   { to: '/yards', label: 'My yards' },
+  { to: '/advice', label: 'Advice', roles: ['advisor', 'coordinator'] },
+  { to: '/drive', label: 'Pledge drive', roles: ['coordinator'] },
   { to: '/admin/users', label: 'People', roles: ['coordinator'] },
   { to: '/admin/mail', label: 'Sent mail', roles: ['coordinator'] },
 ]

@@ -88,3 +88,18 @@ export const declineBody = z.object({ reason: z.string().trim().min(1, 'Say in a
 export interface ShareFigures { native: number; total: number; share: number | null }
 export interface ShareSet { count: ShareFigures; area: ShareFigures; volume: ShareFigures }
 export interface PredictedShares { before: ShareSet; after: ShareSet }
+
+/** A recommendation as GET /api/yards/[id]/advice lists it. */
+export interface AdviceRecommendation {
+  id: number
+  visitId: number
+  change: RecommendationChange
+  summary: string
+  predicted: PredictedShares
+  basedOnVersion: number
+  status: 'proposed' | 'accepted' | 'declined'
+  declineReason: string | null
+  advisorName: string
+  visitedOn: string
+  createdAt: string
+}
