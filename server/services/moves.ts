@@ -13,10 +13,16 @@ const EPS = 1e-9
 const SHARES: ShareKind[] = ['count', 'area', 'volume']
 const LAYER_WORD: Record<Layer, [string, string]> = { tree: ['tree', 'trees'], shrub: ['shrub', 'shrubs'], ground: ['perennial or grass', 'perennials and grasses'] }
 
-/** Invasive plantings in the order their replacement is proposed: largest contribution first, then document order. */
-export function invasiveOrder(plantings: PlantingMeasure[], share: ShareKind): PlantingMeasure[] {
-  return plantings.filter((p) => p.status === 'invasive' && contribution(p, share) > 0)
-    .sort((a, b) => round3(contribution(b, share)) - round3(contribution(a, share)) || a.index - b.index)
+/** Invasive plantings grouped by species, in the order their replacement is proposed: largest contribution first. */
+export function invasiveOrder(plantings: PlantingMeasure[], share: ShareKind): PlantingMeasure[][] {
+  const groups = new Map<string, PlantingMeasure[]>()
+  for (const p of plantings) {
+    if (p.status !== 'invasive' || contribution(p, share) <= 0) continue
+    const key = p.name.toLowerCase()
+    groups.set(key, [...(groups.get(key) ?? []), p])
+  }
+  const total = (g: PlantingMeasure[]) => round3(g.reduce((sum, p) => sum + contribution(p, share), 0))
+  return [...groups.values()].sort((a, b) => total(b) - total(a) || a[0]!.index - b[0]!.index)
 }
 
 /** Lawn that can be converted: non-native lawn plantings with visible area, largest first. */
@@ -60,14 +66,20 @@ export function movesToGoal(measured: MeasuredYard, goal: number): { moves: Move
     // an empty share has nothing to close; a share at the goal meets it
     if (total === 0 || native >= goal * total - EPS * Math.max(1, total)) continue
     const replaced = new Set<number>()
-    for (const p of invasiveOrder(measured.plantings, share)) {
+    for (const group of invasiveOrder(measured.plantings, share)) {
       if (native >= goal * total - EPS * total) break
-      native += contribution(p, share)
-      replaced.add(p.index)
-      const word = LAYER_WORD[p.layer]
-      moves.push(p.isArea
-        ? { share, kind: 'replace-invasive', amount: round3(p.area), unit: 'm2', text: `Replace the ${areaWords(p.area, units)} of ${p.name} (invasive in ${where}) with native ${word[1]}` }
-        : { share, kind: 'replace-invasive', amount: p.count ?? 0, unit: 'plants', text: `Replace the ${p.count === 1 ? '' : `${p.count} `}${p.name} (invasive in ${where}) with ${p.count === 1 ? `a native ${word[0]}` : `native ${word[1]}`} of about the same size` })
+      for (const p of group) { native += contribution(p, share); replaced.add(p.index) }
+      const { name, layer } = group[0]!
+      const word = LAYER_WORD[layer]
+      const where2 = `${name} (invasive in ${where})`
+      const spots = group.length > 1 ? ` in ${group.length} places` : ''
+      if (group.some((p) => p.isArea)) {
+        const area = group.reduce((sum, p) => sum + p.area, 0)
+        moves.push({ share, kind: 'replace-invasive', amount: round3(area), unit: 'm2', text: `Replace the ${areaWords(area, units)} of ${where2}${spots} with native ${word[1]}` })
+      } else {
+        const plants = group.reduce((sum, p) => sum + (p.count ?? 0), 0)
+        moves.push({ share, kind: 'replace-invasive', amount: plants, unit: 'plants', text: `Replace the ${plants === 1 ? '' : `${plants} `}${where2}${spots} with ${plants === 1 ? `a native ${word[0]}` : `native ${word[1]}`} of about the same size` })
+      }
     }
     let gap = goal * total - native
     if (gap <= EPS * total) continue
@@ -115,7 +127,7 @@ export function applyMoves(doc: YardDocument, facts: Map<string, SpeciesFacts>, 
   const measured = measureYard(doc, facts, region)
   const replaced = new Set<number>()
   const replaceCount = moves.filter((m) => m.kind === 'replace-invasive').length
-  for (const p of invasiveOrder(measured.plantings, share).slice(0, replaceCount)) {
+  for (const p of invasiveOrder(measured.plantings, share).slice(0, replaceCount).flat()) {
     replaced.add(p.index)
     const target = out.plantings[p.index]!
     Object.assign(target, { species: nativeFor(p.layer), cultivar: null, height: p.height }, p.isArea ? { spacing: p.spacing } : { spread: p.spread })

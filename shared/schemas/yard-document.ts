@@ -16,12 +16,8 @@ const coord = z.number().min(-MAX_COORD).max(MAX_COORD)
 const point = z.tuple([coord, coord])
 const elementId = z.string().min(1).max(64)
 
+// outlines are checked for crossings once, in the document pass below (cheaper than a refinement per ring)
 const ring = z.array(point).min(3, 'A shape needs at least 3 points').max(MAX_VERTICES)
-  .superRefine((pts, ctx) => {
-    if (pts.length < 3) return
-    const edge = firstSelfIntersection(pts as Point[])
-    if (edge >= 0) ctx.addIssue({ code: 'custom', message: `The outline crosses itself (edge ${edge + 1}) or has no area` })
-  })
 
 export const AREA_KINDS = ['building', 'paving', 'bed', 'water'] as const
 export const SUN = ['full', 'part', 'shade'] as const
@@ -54,27 +50,15 @@ export const yardPlanting = z.object({
   points: ring.optional(),
   spacing: z.number().positive().max(20).nullable().optional(),
   height: z.number().positive().max(120).optional(),
-}).superRefine((p, ctx) => {
-  const isPoint = p.x !== undefined || p.y !== undefined
-  if (isPoint && p.points) ctx.addIssue({ code: 'custom', message: 'A planting is either a point (x, y) or an area (points), not both' })
-  else if (isPoint && (p.x === undefined || p.y === undefined)) ctx.addIssue({ code: 'custom', path: [p.x === undefined ? 'x' : 'y'], message: 'A point planting needs both x and y' })
-  else if (!isPoint && !p.points) ctx.addIssue({ code: 'custom', message: 'A planting needs a position (x, y) or an outline (points)' })
 })
 
-/**
- * An element of a list whose errors name it: the path stays `plantings.3.points`, the message gains
- * `Planting "p4": …`, so a 400 for a yard of a thousand plantings says which one is wrong.
- */
-function named<S extends z.ZodType>(schema: S, noun: string) {
-  return z.custom<z.input<S>>(() => true).transform((value, ctx): z.output<S> => {
-    const result = schema.safeParse(value)
-    if (result.success) return result.data
-    const id = typeof (value as { id?: unknown } | null)?.id === 'string' ? (value as { id: string }).id : null
-    for (const issue of result.error.issues) {
-      ctx.addIssue({ code: 'custom', path: issue.path as PropertyKey[], message: `${noun}${id ? ` "${id}"` : ''}: ${issue.message}`, input: value })
-    }
-    return z.NEVER
-  })
+/** Why a planting is neither a point (x, y) nor an area (points), or null when it is one of them. */
+export function plantingShapeIssue(p: { x?: number; y?: number; points?: unknown }): { path: string[]; message: string } | null {
+  const isPoint = p.x !== undefined || p.y !== undefined
+  if (isPoint && p.points) return { path: [], message: 'A planting is either a point (x, y) or an area (points), not both' }
+  if (isPoint && (p.x === undefined || p.y === undefined)) return { path: [p.x === undefined ? 'x' : 'y'], message: 'A point planting needs both x and y' }
+  if (!isPoint && !p.points) return { path: [], message: 'A planting needs a position (x, y) or an outline (points)' }
+  return null
 }
 
 export const yardLine = z.object({
@@ -95,7 +79,7 @@ export const yardBackdrop = z.object({
   locked: z.boolean().default(false),
 })
 
-export const yardDocument = z.object({
+export const yardDocumentShape = z.object({
   format: z.literal(YARD_FORMAT).default(YARD_FORMAT),
   name: z.string().trim().max(120).optional(),
   region: regionCode.optional(),
@@ -105,9 +89,9 @@ export const yardDocument = z.object({
   boundary: z.array(point).max(MAX_VERTICES).refine((pts) => pts.length === 0 || pts.length >= 3, 'A lot outline needs at least 3 points')
     .refine((pts) => pts.length === 0 || firstSelfIntersection(pts as Point[]) < 0, 'The lot outline crosses itself or has no area')
     .default([]),
-  areas: z.array(named(yardArea, 'Area')).max(MAX_AREAS, `A yard has at most ${MAX_AREAS} areas`).default([]),
-  plantings: z.array(named(yardPlanting, 'Planting')).max(MAX_PLANTINGS, `A yard has at most ${MAX_PLANTINGS} plantings`).default([]),
-  lines: z.array(named(yardLine, 'Line')).max(500).default([]),
+  areas: z.array(yardArea).max(MAX_AREAS, `A yard has at most ${MAX_AREAS} areas`).default([]),
+  plantings: z.array(yardPlanting).max(MAX_PLANTINGS, `A yard has at most ${MAX_PLANTINGS} plantings`).default([]),
+  lines: z.array(yardLine).max(500).default([]),
   backdrop: yardBackdrop.nullable().optional(),
 }).superRefine((doc, ctx) => {
   const seen = new Set<string>()
@@ -117,10 +101,40 @@ export const yardDocument = z.object({
       seen.add(item.id)
     })
   }
+  const crossing = (list: string, i: number, pts: Point[]) => {
+    const edge = firstSelfIntersection(pts)
+    if (edge >= 0) ctx.addIssue({ code: 'custom', path: [list, i, 'points'], message: `The outline crosses itself (edge ${edge + 1}) or has no area`, input: pts })
+  }
+  doc.areas.forEach((a, i) => crossing('areas', i, a.points as Point[]))
+  doc.plantings.forEach((p, i) => {
+    const issue = plantingShapeIssue(p)
+    if (issue) ctx.addIssue({ code: 'custom', path: ['plantings', i, ...issue.path], message: issue.message, input: p })
+    else if (p.points) crossing('plantings', i, p.points as Point[])
+  })
+})
+
+const NOUNS: Record<string, string> = { areas: 'Area', plantings: 'Planting', lines: 'Line' }
+
+/**
+ * The yard document schema. Errors inside a list keep their path (`plantings.3.points`) and name the element
+ * (`Planting "p4": …`), so a 400 for a yard of a thousand plantings says which one is wrong. The element
+ * checks run once over the parsed document, which keeps validating big documents cheap.
+ */
+export const yardDocument = z.custom<z.input<typeof yardDocumentShape>>(() => true).transform((value, ctx): z.output<typeof yardDocumentShape> => {
+  const result = yardDocumentShape.safeParse(value)
+  if (result.success) return result.data
+  for (const issue of result.error.issues) {
+    const [list, index] = issue.path
+    const element = typeof list === 'string' && typeof index === 'number' ? (value as Record<string, unknown[]>)[list]?.[index] : undefined
+    const id = element && typeof (element as { id?: unknown }).id === 'string' ? (element as { id: string }).id : null
+    const noun = typeof list === 'string' && typeof index === 'number' ? NOUNS[list] : undefined
+    ctx.addIssue({ code: 'custom', path: issue.path as PropertyKey[], input: element ?? value, message: noun ? `${noun}${id ? ` "${id}"` : ` ${index + 1}`}: ${issue.message}` : issue.message })
+  }
+  return z.NEVER
 })
 
 export type YardDocument = z.infer<typeof yardDocument>
-export type YardDocumentInput = z.input<typeof yardDocument>
+export type YardDocumentInput = z.input<typeof yardDocumentShape>
 export type YardArea = z.infer<typeof yardArea>
 export type YardPlanting = z.infer<typeof yardPlanting>
 export type YardLine = z.infer<typeof yardLine>

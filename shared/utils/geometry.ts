@@ -165,12 +165,33 @@ export function ringInside(ring: Ring, ringBox: Box, s: Shape): boolean {
   return !anyEdgesMeet(ring, s.ring, s.box)
 }
 
-/** The two rings share no interior, in the cases that are sure without clipping (else false). */
-export function ringsApart(a: Ring, aBox: Box, b: Shape): boolean {
-  if (!boxesOverlap(aBox, b.box)) return true
-  if (anyEdgesMeet(a, b.ring, b.box)) return false
+// convex outlines share no interior when some edge normal separates their projections (touching allowed)
+function separatedConvex(a: Shape, b: Shape): boolean {
+  for (const s of [a, b]) {
+    const ring = s.ring
+    for (let i = 0, n = ring.length; i < n; i++) {
+      const p = ring[i]!
+      const q = ring[(i + 1) % n]!
+      const nx = q[1] - p[1]
+      const ny = p[0] - q[0]
+      if (nx === 0 && ny === 0) continue
+      let minA = Infinity, maxA = -Infinity, minB = Infinity, maxB = -Infinity
+      for (const [x, y] of a.ring) { const d = x * nx + y * ny; if (d < minA) minA = d; if (d > maxA) maxA = d }
+      for (const [x, y] of b.ring) { const d = x * nx + y * ny; if (d < minB) minB = d; if (d > maxB) maxB = d }
+      const tol = 1e-12 * (Math.abs(minA) + Math.abs(maxA) + Math.abs(minB) + Math.abs(maxB) + 1)
+      if (maxA <= minB + tol || maxB <= minA + tol) return true
+    }
+  }
+  return false
+}
+
+/** The two outlines share no interior, in the cases that are sure without clipping (else false). */
+export function ringsApart(a: Shape, b: Shape): boolean {
+  if (!boxesOverlap(a.box, b.box)) return true
+  if (a.convex && b.convex) return separatedConvex(a, b)
+  if (anyEdgesMeet(a.ring, b.ring, b.box)) return false
   // no edge meets: either one holds the other, or they are apart
-  return !pointInRing(a[0]!, b.ring) && !pointInRing(b.ring[0]!, a)
+  return !pointInRing(a.ring[0]!, b.ring) && !pointInRing(b.ring[0]!, a.ring)
 }
 
 export const clip = {
@@ -191,40 +212,122 @@ export function circleAreaInLot(cx: number, cy: number, r: number, lot: Shape | 
 export function ringInLot(ring: Ring, lot: Shape | null): { geom: MultiPolygon; area: number; whole: boolean } {
   const box = boxOf(ring)
   if (!lot || ringInside(ring, box, lot)) return { geom: [[ring]], area: ringArea(ring), whole: true }
-  if (ringsApart(ring, box, lot)) return { geom: [], area: 0, whole: false }
+  if (ringsApart(shapeOf(ring), lot)) return { geom: [], area: 0, whole: false }
   const geom = clip.intersection([ring], [lot.ring])
   return { geom, area: multiPolygonArea(geom), whole: false }
 }
 
 /**
- * Visible area of a ground-layer shape: its part inside the lot, less everything drawn above it (`above`).
- * Cutters wholly inside the shape and apart from each other are subtracted exactly; the rest is clipped.
+ * Exact area of a union of convex outlines, without clipping: by Green's theorem the area is the sum of
+ * ½(x₁y₂ − x₂y₁) over the pieces of every edge that lie outside all the other outlines. Edges that coincide in
+ * the same direction count once; opposite ones cancel by themselves.
  */
-export interface Cutter { ring: Ring; box: Box }
-export const cutterOf = (ring: Ring): Cutter => ({ ring, box: boxOf(ring) })
+export function convexUnionArea(shapes: Shape[]): number {
+  if (shapes.length === 1) return shapes[0]!.area
+  let sum = 0
+  const cut: Array<[number, number]> = []
+  for (let a = 0; a < shapes.length; a++) {
+    const A = shapes[a]!
+    const ring = A.ring
+    for (let i = 0, n = ring.length; i < n; i++) {
+      const p = ring[i]!
+      const q = ring[(i + 1) % n]!
+      if (p[0] === q[0] && p[1] === q[1]) continue
+      const ex = q[0] - p[0]
+      const ey = q[1] - p[1]
+      // boxes widened by the collinearity tolerance, so an edge a hair outside another still meets it
+      const m = 1e-9 * (Math.abs(p[0]) + Math.abs(p[1]) + Math.abs(ex) + Math.abs(ey) + 1)
+      const eMinX = Math.min(p[0], q[0]) - m, eMaxX = Math.max(p[0], q[0]) + m, eMinY = Math.min(p[1], q[1]) - m, eMaxY = Math.max(p[1], q[1]) + m
+      cut.length = 0
+      for (let b = 0; b < shapes.length; b++) {
+        if (b === a) continue
+        const B = shapes[b]!
+        if (eMaxX < B.box.minX || eMinX > B.box.maxX || eMaxY < B.box.minY || eMinY > B.box.maxY) continue
+        const span = edgeInConvex(p, q, ex, ey, B)
+        if (!span) continue
+        // on B's outline: drop the piece once for edges running the same way, keep it when they run opposite
+        if (span[2] === 0 || (span[2] * A.sign * B.sign > 0 && b < a)) cut.push([span[0], span[1]])
+      }
+      let t = 0
+      cut.sort((u, v) => u[0] - v[0])
+      for (const [lo, hi] of cut) {
+        if (lo > t) sum += A.sign * piece(p, ex, ey, t, lo)
+        if (hi > t) t = hi
+      }
+      if (t < 1) sum += A.sign * piece(p, ex, ey, t, 1)
+    }
+  }
+  return Math.abs(sum / 2)
+}
 
+function piece(p: Point, ex: number, ey: number, t0: number, t1: number): number {
+  const x1 = p[0] + ex * t0, y1 = p[1] + ey * t0, x2 = p[0] + ex * t1, y2 = p[1] + ey * t1
+  return x1 * y2 - x2 * y1
+}
+
+// The part [t0, t1] of edge p→q inside the closed convex outline B, and whether it runs along B's outline:
+// 0 inside, 1 along an edge of B in the same sense (after orientation), −1 along it in the opposite sense.
+function edgeInConvex(p: Point, q: Point, ex: number, ey: number, B: Shape): [number, number, number] | null {
+  let lo = 0
+  let hi = 1
+  let along = 0
+  const ring = B.ring
+  const tol = 1e-9 * (Math.abs(p[0]) + Math.abs(p[1]) + Math.abs(ex) + Math.abs(ey) + 1)
+  for (let k = 0, m = ring.length; k < m; k++) {
+    const b0 = ring[k]!
+    const b1 = ring[(k + 1) % m]!
+    const bx = b1[0] - b0[0]
+    const by = b1[1] - b0[1]
+    const len = Math.hypot(bx, by)
+    if (len === 0) continue
+    // signed distances of p and q from B's edge line, positive inside B
+    const d0 = (B.sign * (bx * (p[1] - b0[1]) - by * (p[0] - b0[0]))) / len
+    const d1 = (B.sign * (bx * (q[1] - b0[1]) - by * (q[0] - b0[0]))) / len
+    if (Math.abs(d0) <= tol && Math.abs(d1) <= tol) {
+      along = ex * bx + ey * by > 0 ? 1 : -1
+      continue
+    }
+    if (d0 < 0 && d1 < 0) return null
+    if (d0 < 0) lo = Math.max(lo, d0 / (d0 - d1))
+    else if (d1 < 0) hi = Math.min(hi, d0 / (d0 - d1))
+  }
+  return hi - lo > 1e-12 ? [lo, hi, along] : null
+}
+
+/** A shape drawn above a ground planting, prepared once per document. */
+export type Cutter = Shape
+export const cutterOf = shapeOf
+
+/**
+ * Visible area of a ground-layer shape: its part inside the lot, less everything drawn above it (`above`).
+ * Cutters that overlap nothing else are subtracted exactly (a cutter inside another counts once, as the outer
+ * one); only groups of cutters that really cross each other or the outline go to polygon-clipping.
+ */
 export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[]): { area: number; inLot: number } {
   const inLot = ringInLot(ring, lot)
   if (inLot.area === 0) return { area: 0, inLot: 0 }
-  const box = boxOf(ring)
-  const near = above.filter((c) => boxesOverlap(c.box, box))
+  const self = shapeOf(ring)
+  const near = above.filter((c) => boxesOverlap(c.box, self.box) && !ringsApart(c, self))
   if (!near.length) return { area: inLot.area, inLot: inLot.area }
-  const self = inLot.whole ? shapeOf(ring) : null
-  // cutters that need clipping: they cross the outline, or they overlap another cutter
+  // group the cutters that overlap each other (union-find over overlapping pairs)
+  const parent = near.map((_, i) => i)
+  const find = (i: number): number => (parent[i] === i ? i : (parent[i] = find(parent[i]!)))
+  for (let i = 0; i < near.length; i++) {
+    for (let j = i + 1; j < near.length; j++) {
+      if (boxesOverlap(near[i]!.box, near[j]!.box) && !ringsApart(near[i]!, near[j]!)) parent[find(i)] = find(j)
+    }
+  }
+  const groups = new Map<number, Cutter[]>()
+  near.forEach((c, i) => { const r = find(i); groups.set(r, [...(groups.get(r) ?? []), c]) })
   const hard: Ring[] = []
   let subtract = 0
-  const shapes = near.map((c) => shapeOf(c.ring))
-  for (let i = 0; i < near.length; i++) {
-    const c = near[i]!
-    let overlapsOther = false
-    for (let j = 0; j < near.length && !overlapsOther; j++) {
-      if (j !== i && boxesOverlap(c.box, near[j]!.box) && !ringsApart(c.ring, c.box, shapes[j]!)) overlapsOther = true
-    }
-    if (!overlapsOther && self) {
-      if (ringInside(c.ring, c.box, self)) { subtract += shapes[i]!.area; continue }
-      if (ringsApart(c.ring, c.box, self)) continue
-    }
-    hard.push(c.ring)
+  for (const group of groups.values()) {
+    // a cutter inside another of its group adds nothing to the group's cover (a drift in its bed)
+    const kept = group.filter((c, i) => !group.some((o, j) => j !== i && o.convex && ringInside(c.ring, c.box, o) && !(j > i && ringInside(o.ring, o.box, c))))
+    if (kept.length === 1 && inLot.whole && ringInside(kept[0]!.ring, kept[0]!.box, self)) subtract += kept[0]!.area
+    // convex pieces on a convex shape: |S ∩ U| = |S| + |U| − |S ∪ U|, all unions of convex outlines
+    else if (inLot.whole && self.convex && kept.every((c) => c.convex)) subtract += self.area + convexUnionArea(kept) - convexUnionArea([self, ...kept])
+    else hard.push(...kept.map((c) => c.ring))
   }
   if (hard.length) {
     const covered = clip.intersection(inLot.geom, clip.union(...hard.map((r) => [r] as Polygon)))

@@ -17,17 +17,27 @@ describe('yard document schema', () => {
   })
 
   it('names the element and its id in each refusal', () => {
-    const bowtie = [[0, 0], [2, 2], [2, 0], [0, 2]]
     const fields = fieldsOf({
       areas: [{ id: 'house', kind: 'building', points: rect(0, 0, 2, 2) }, { id: 'shed', kind: 'building', points: [[0, 0], [1, 1]] }],
-      plantings: [plant(0), { ...plant(1), count: 0 }, plant(2), { id: 'drift-7', species: null, points: bowtie }, { ...plant(4), x: Infinity }, { ...plant(5), spread: Number.NaN }],
+      plantings: [plant(0), { ...plant(1), count: 0 }, plant(2), { ...plant(3), x: Infinity }, { ...plant(4), spread: Number.NaN }],
     })
     expect(fields['areas.1.points']).toMatch(/^Area "shed": A shape needs at least 3 points/)
     expect(fields['plantings.1.count']).toMatch(/^Planting "p1": A count is at least 1/)
-    expect(fields['plantings.3.points']).toMatch(/^Planting "drift-7": The outline crosses itself/)
-    expect(fields['plantings.4.x']).toMatch(/^Planting "p4": /)
-    expect(fields['plantings.5.spread']).toMatch(/^Planting "p5": /)
-    expect(Object.keys(fields).sort()).toEqual(['areas.1.points', 'plantings.1.count', 'plantings.3.points', 'plantings.4.x', 'plantings.5.spread'])
+    expect(fields['plantings.3.x']).toMatch(/^Planting "p3": /)
+    expect(fields['plantings.4.spread']).toMatch(/^Planting "p4": /)
+    expect(Object.keys(fields).sort()).toEqual(['areas.1.points', 'plantings.1.count', 'plantings.3.x', 'plantings.4.spread'])
+    // outlines and positions are checked once every field is well formed
+    const bowtie = [[0, 0], [2, 2], [2, 0], [0, 2]]
+    const shapes = fieldsOf({
+      areas: [{ id: 'patio', kind: 'paving', points: bowtie }],
+      plantings: [plant(0), { id: 'drift-7', species: null, points: bowtie }, { id: 'half', species: null, x: 1 }, { id: 'both', species: null, x: 1, y: 1, points: rect(0, 0, 1, 1) }],
+    })
+    expect(shapes).toEqual({
+      'areas.0.points': expect.stringMatching(/^Area "patio": The outline crosses itself/),
+      'plantings.1.points': expect.stringMatching(/^Planting "drift-7": The outline crosses itself/),
+      'plantings.2.y': 'Planting "half": A point planting needs both x and y',
+      'plantings.3': 'Planting "both": A planting is either a point (x, y) or an area (points), not both',
+    })
   })
 
   it('refuses yards over 5,000 plantings or 2,000 areas', () => {

@@ -1,0 +1,57 @@
+// POST /api/score, as the editor calls it on every change: a 150-planting yard and a 1,000-planting / 100-area
+// yard, beside GET /api/health measured in the same run. Target: the big yard ≤ 2× the health route's median.
+import { measure, report, health, signIn } from './_measure.mjs'
+
+const rect = (x, y, w, h) => [[x, y], [x + w, y], [x + w, y + h], [x, y + h]]
+const SPECIES = ['Asclepias tuberosa', 'Echinacea purpurea', 'Carex pensylvanica', 'Berberis thunbergii', 'Plantago imaginaria', null]
+
+// A lot of lawn with a house, a drive along the lot line, paths, and a grid of beds holding drifts and clumps;
+// two paths cross beds so the ground layer needs real clipping, as drawn yards do.
+function yard({ width, depth, beds, plantings }) {
+  const areas = [
+    { id: 'house', kind: 'building', z: 10, points: rect(width * 0.3, depth * 0.4, width * 0.4, depth * 0.2) },
+    { id: 'drive', kind: 'paving', z: 9, points: rect(width - 4, depth * 0.5, 4, depth * 0.5) },
+  ]
+  const cols = Math.ceil(Math.sqrt(beds))
+  const cell = Math.min(width, depth * 0.4) / cols
+  const bedRings = []
+  for (let i = 0; i < beds; i++) {
+    const ring = rect((i % cols) * cell + 0.5, Math.floor(i / cols) * cell + 0.5, cell - 1, cell - 1)
+    bedRings.push(ring)
+    areas.push({ id: `bed${i}`, kind: 'bed', z: 5, points: ring })
+  }
+  areas.push({ id: 'path1', kind: 'paving', z: 9, points: rect(0, cell * 1.5, width * 0.6, 1) })
+  areas.push({ id: 'path2', kind: 'paving', z: 9, points: rect(cell * 2.5, 0, 1, depth * 0.35) })
+  const list = [
+    { id: 'lawn', species: 'Poa pratensis', z: 0, points: rect(0, 0, width, depth), spacing: null, height: 0.08 },
+    { id: 'oak', species: 'Quercus alba', x: width * 0.8, y: depth * 0.2, count: 1, spread: 12, height: 20 },
+    { id: 'maple', species: 'Acer platanoides', x: width * 0.2, y: depth * 0.8, count: 1, spread: 9, height: 14 },
+  ]
+  for (let i = 0; list.length < plantings; i++) {
+    const bed = bedRings[i % beds]
+    const [x0, y0] = bed[0]
+    const w = bed[1][0] - x0
+    const species = SPECIES[i % SPECIES.length]
+    if (i < beds) list.push({ id: `drift${i}`, species: 'Carex pensylvanica', z: 6, points: rect(x0 + w * 0.5, y0, w * 0.5, w * 0.5), spacing: 0.3, height: 0.2 })
+    else list.push({ id: `p${i}`, species, x: x0 + ((i * 7) % 10) / 10 * w * 0.5 + 0.3, y: y0 + ((i * 3) % 10) / 10 * w + 0.1, count: 1 + (i % 5), spread: 0.5, height: 0.7 })
+  }
+  return { format: 'wildward.yard/1', region: 'US-OH', units: 'ft', boundary: rect(0, 0, width, depth), areas, plantings: list }
+}
+
+const small = yard({ width: 18, depth: 36, beds: 13, plantings: 150 })
+const big = yard({ width: 60, depth: 90, beds: 96, plantings: 1000 })
+if (big.areas.length !== 100 || big.plantings.length !== 1000 || small.plantings.length !== 150) throw new Error('bench yards have the wrong size')
+
+const cookie = await signIn('homeowner@example.org')
+const post = (doc) => {
+  const body = JSON.stringify(doc)
+  return () => ['/api/score', { method: 'POST', headers: { 'content-type': 'application/json', cookie }, body }]
+}
+const base = await measure('GET /api/health', health)
+const rows = [
+  await measure('POST /api/score (150 plantings)', post(small)),
+  await measure('POST /api/score (1,000 plantings, 100 areas)', post(big)),
+]
+console.log(`bodies: ${(JSON.stringify(small).length / 1024).toFixed(0)} KiB and ${(JSON.stringify(big).length / 1024).toFixed(0)} KiB`)
+const ok = report('Score engine', base, rows, { 'POST /api/score (1,000 plantings, 100 areas)': 2 })
+if (!ok) console.log('target not met (reported, not failed: a benchmark, not a timed test)')
