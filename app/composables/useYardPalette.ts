@@ -22,6 +22,8 @@ export const AREA_STYLES: Record<'lot' | 'building' | 'paving' | 'bed' | 'water'
   water: { fill: '#a6d2e6', stroke: '#3b7a9c', label: 'Water', dash: [] },
 }
 
+export const LAWN_FILL = '#d7e6b9'
+
 export const LINE_STYLES = {
   overhead: { stroke: '#3d3d52', dash: [10, 4, 2, 4], label: 'Overhead line' },
   buried: { stroke: '#c05f00', dash: [3, 4], label: 'Buried line' },
