@@ -55,4 +55,16 @@ export interface SpeciesDetails extends SpeciesFacts {
   /** plain words: "host plant for caterpillars", "seed for birds", "nectar" … */
   wildlife: string[]
   sources: Record<string, string>
+  /** every field whose value is a default rather than data (a superset of `estimated`) */
+  estimatedFields?: string[]
+  /** regions whose 2015 state (or the federal) noxious list names it */
+  noxiousIn?: string[]
+  notes?: string | null
+  usdaSymbol?: string | null
+  origin?: 'usda' | 'coordinator'
+  /** true when USDA PLANTS has a characteristics row (sun, soil, bloom, zone …) */
+  hasFacts?: boolean
+  /** false for inconspicuous (wind-pollinated) flowers, which fill no bloom gap */
+  flowerConspicuous?: boolean | null
+  duration?: string | null
 }

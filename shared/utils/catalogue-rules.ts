@@ -117,7 +117,8 @@ const RANK_WORDS = new Set(['ssp.', 'var.', 'f.', 'subsp.'])
 /**
  * The bare name of a USDA name with authors: genus + epithet [+ rank + infraspecific epithet], hybrid sign
  * written `×` attached (USDA PLANTS style) or `X` spaced (native-status file style) both become `×`, glued.
- * `Poa pratensis L. ssp. pratensis ` → `Poa pratensis ssp. pratensis`; `Abelia X grandiflora` → `Abelia ×grandiflora`.
+ * `Poa pratensis L. ssp. pratensis ` → `Poa pratensis ssp. pratensis`; `Abelia X grandiflora` → `Abelia ×grandiflora`;
+ * `Ulmus pumila × rubra [unnamed hybrid]` → `Ulmus pumila ×rubra`.
  * Trailing footnote digits (noxious list: `Ambrosia trifida L.1`) sit in the author and are dropped with it.
  */
 export function bareName(withAuthor: string): string {
@@ -128,13 +129,18 @@ export function bareName(withAuthor: string): string {
   if (!genus) return ''
   out.push(genus)
   const epithet = tokens[1]
-  if (epithet && /^×?[a-z][a-z-]*$/.test(epithet)) out.push(epithet)
+  if (epithet && /^×?[a-z][a-z.-]*$/.test(epithet)) out.push(epithet)
   else return out.join(' ')
-  for (let i = 2; i < tokens.length - 1; i++) {
+  const epithetLike = (t: string | undefined) => !!t && /^×?[a-z][a-z.-]*$/.test(t) && !['ex', 'in', 'et'].includes(t)
+  for (let i = 2; i < tokens.length; i++) {
     const t = tokens[i]!
-    if (RANK_WORDS.has(t) && /^[a-z][a-z-]*$/.test(tokens[i + 1]!)) {
+    if ((RANK_WORDS.has(t) || /^×(ssp\.|var\.|f\.)$/.test(t)) && epithetLike(tokens[i + 1])) {
+      // every rank pair is kept: USDA has quadrinomials (ssp. … var. …) and hybrid formulas (ssp. a × ssp. b)
       out.push(t === 'subsp.' ? 'ssp.' : t, tokens[i + 1]!)
-      break
+      i++
+    } else if (/^×[a-z][a-z.-]*$/.test(t)) {
+      // a hybrid formula (Ulmus pumila × rubra) names a taxon of its own, not the first parent
+      out.push(t)
     }
   }
   return out.join(' ')
@@ -147,7 +153,7 @@ export function speciesOf(bare: string): string {
 
 /** The key every name lookup uses: lower case, one space, cultivar in quotes dropped, hybrid X as ×. */
 export function nameKey(name: string): string {
-  return name.replace(/'[^']*'|"[^"]*"|‘[^’]*’/g, ' ').replace(/\s+x\s+/gi, ' ×').replace(/\s+/g, ' ').trim().toLowerCase()
+  return name.replace(/'[^']*'|"[^"]*"|‘[^’]*’/g, ' ').replace(/\s+[x×]\s+/gi, ' ×').replace(/\s+/g, ' ').trim().toLowerCase()
 }
 
 // ---------------------------------------------------------------------------------------------------------
@@ -204,9 +210,9 @@ export function moistureFrom(use: string | null | undefined, drought: string | n
 /** Soil texture flags: coarse → sand, medium → loam, fine → clay. */
 export function soilFromTextures(coarse: unknown, medium: unknown, fine: unknown): Soil[] {
   const out: Soil[] = []
-  if (isTrue(coarse)) out.push('sand')
-  if (isTrue(medium)) out.push('loam')
-  if (isTrue(fine)) out.push('clay')
+  if (usdaTrue(coarse)) out.push('sand')
+  if (usdaTrue(medium)) out.push('loam')
+  if (usdaTrue(fine)) out.push('clay')
   return out
 }
 
@@ -254,7 +260,7 @@ export function zoneFromMinTemperatureF(t: number): string {
 // ---------------------------------------------------------------------------------------------------------
 // Other USDA facts.
 
-export function isTrue(v: unknown): boolean {
+export function usdaTrue(v: unknown): boolean {
   return v === true || (typeof v === 'string' && v.trim().toUpperCase() === 'TRUE')
 }
 
@@ -286,9 +292,9 @@ export function toxicityFrom(v: string | null | undefined): { toxic: boolean; to
 export function wildlifeFrom(c: { fruitSeedAbundance?: string | null; flowerConspicuous?: unknown; berryNutSeed?: unknown }): string[] {
   const out: string[] = []
   const abundance = (c.fruitSeedAbundance ?? '').trim()
-  if (abundance === 'High' || abundance === 'Medium' || isTrue(c.berryNutSeed)) out.push('seed or fruit for birds')
+  if (abundance === 'High' || abundance === 'Medium' || usdaTrue(c.berryNutSeed)) out.push('seed or fruit for birds')
   // conspicuous flowers are, as a rule, insect-pollinated (common practice), so they offer nectar and pollen
-  if (isTrue(c.flowerConspicuous)) out.push('flowers for pollinators')
+  if (usdaTrue(c.flowerConspicuous)) out.push('flowers for pollinators')
   return out
 }
 
@@ -317,12 +323,12 @@ export function defaultSpreadM(layer: Layer, heightM: number, vegetativeSpread?:
     s = clamp(heightM * 0.6, 0.25, 1.2)
     if (vegetativeSpread === 'Moderate' || vegetativeSpread === 'Rapid') s = Math.min(1.8, s * 1.5)
   }
-  return round2(s)
+  return roundToCm(s)
 }
 
 /** On-centre spacing for drifts and massings: the spread (plants just touching at maturity); turf is sown: null. */
 export function defaultSpacingM(spreadM: number, lawn: boolean): number | null {
-  return lawn ? null : round2(spreadM)
+  return lawn ? null : roundToCm(spreadM)
 }
 
 /** Days of cold-moist stratification when USDA says a cold period is needed: woody plants 90, others 60. */
@@ -363,12 +369,12 @@ export function isLawnSpecies(bare: string): boolean {
   return LAWN_SPECIES.has(speciesOf(nameKey(bare)))
 }
 
-export function round2(v: number): number {
+export function roundToCm(v: number): number {
   return Math.round(v * 100) / 100
 }
 
 export function feetToMetres(ft: number): number {
-  return round2(ft * FT)
+  return roundToCm(ft * FT)
 }
 
 // ---------------------------------------------------------------------------------------------------------
@@ -486,5 +492,35 @@ export function deriveFacts(plant: { scientificName: string; family: string | nu
     minTemperatureF, minZone, toxic: tox.toxic, toxicity: tox.toxicity,
     propagatedBySeed, coldStratification, coldMoistDays, seedNeedsLight, scarify: coat.scarify, hotWaterSoak: coat.hotWaterSoak,
     seedsPerPound, seedlingsPerPot, commercialAvailability, wildlife, hasCharacteristics: !!c, sources, estimated,
+  }
+}
+
+type Refreshable = Pick<CatalogueEntry, 'layer' | 'height' | 'spread' | 'spacing' | 'lawn' | 'coldStratification' | 'coldMoistDays'
+  | 'seedsPerPound' | 'seedNeedsLight' | 'seedlingsPerPot' | 'scarify' | 'hotWaterSoak' | 'family' | 'genus' | 'sources' | 'estimated'>
+
+/**
+ * After a coordinator changes some facts, recomputes the defaults that depend on them (only values still
+ * marked estimated, or derived from a USDA flag, are touched): layer → height; height → spread → spacing;
+ * cold period → its days; seeds per pound → seed light and seedlings per pot.
+ */
+export function refreshEstimates(d: Refreshable, changed: Iterable<string>) {
+  const c = new Set(changed)
+  const est = (f: string) => d.estimated.includes(f)
+  const mark = (f: string, rule: string) => { d.sources[f] = `${ESTIMATED}: ${rule}`; if (!est(f)) d.estimated.push(f) }
+  if (c.has('layer') && est('height')) { d.height = DEFAULT_HEIGHT_M[d.layer]; c.add('height') }
+  if ((c.has('height') || c.has('layer')) && est('spread')) { d.spread = d.lawn ? 0.1 : defaultSpreadM(d.layer, d.height); c.add('spread') }
+  if (c.has('spread') && est('spacing')) d.spacing = defaultSpacingM(d.spread, d.lawn)
+  if ((c.has('coldStratification') || c.has('layer')) && (est('coldMoistDays') || d.sources.coldMoistDays === USDA || d.coldMoistDays === null)) {
+    d.coldMoistDays = defaultColdMoistDays(d.layer, d.coldStratification)
+    d.estimated = d.estimated.filter((f) => f !== 'coldMoistDays')
+    if (d.coldMoistDays === 0) d.sources.coldMoistDays = USDA
+    else if (d.coldMoistDays !== null) mark('coldMoistDays', `${d.layer === 'ground' ? 'herbaceous' : 'woody'} plants needing a cold period`)
+  }
+  if (c.has('seedsPerPound') && est('seedNeedsLight')) d.seedNeedsLight = defaultSeedNeedsLight(d.seedsPerPound)
+  if ((c.has('seedsPerPound') || c.has('layer')) && est('seedlingsPerPot')) d.seedlingsPerPot = defaultSeedlingsPerPot(d.layer, d.seedsPerPound)
+  if (c.has('layer')) {
+    const coat = defaultSeedCoat(d.family, d.genus, d.layer)
+    if (est('scarify')) d.scarify = coat.scarify
+    if (est('hotWaterSoak')) d.hotWaterSoak = coat.hotWaterSoak
   }
 }
