@@ -10,6 +10,8 @@
  *        })
  *      })
  *    Only instances that registered a kind claim jobs of it, so a rolling deploy never fails a new kind.
+ *    Throw `new JobCancelled('why')` when the job should not run after all (unsubscribed, plan changed): it is
+ *    marked cancelled, not retried.
  * 2. Enqueue from a service or route (idempotent on the dedupe key; many rows at once in one transaction):
  *      await enqueueJob('pledge-reminder', { userId, driveId }, runAt, `pledge-reminder:${driveId}:${userId}`,
  *        { batchKey: `drive-${driveId}:reminder` })
@@ -46,6 +48,9 @@ export interface EnqueueOptions {
   reschedule?: boolean
   db?: Db
 }
+
+/** Thrown by a handler that decides the job no longer applies: marked cancelled with the reason, never retried. */
+export class JobCancelled extends Error {}
 
 const handlers = new Map<string, JobHandler<any>>()
 
@@ -139,7 +144,7 @@ export interface RunOptions {
   kinds?: string[]
 }
 
-export interface RunResult { claimed: number; sent: number; retried: number; failed: number }
+export interface RunResult { claimed: number; sent: number; retried: number; failed: number; cancelled: number }
 
 /**
  * Claims up to `limit` due jobs for `instanceId`, runs their handlers one after another and records the
@@ -149,7 +154,7 @@ export async function runDueJobs(instanceId: string = INSTANCE_ID, limit = 50, o
   const db = options.db ?? useDb()
   const now = options.now ?? (() => new Date())
   const kinds = (options.kinds ?? registeredJobKinds()).filter((k) => handlers.has(k))
-  const result: RunResult = { claimed: 0, sent: 0, retried: 0, failed: 0 }
+  const result: RunResult = { claimed: 0, sent: 0, retried: 0, failed: 0, cancelled: 0 }
   if (!kinds.length || limit <= 0) return result
 
   const claimTime = now()
@@ -190,7 +195,10 @@ export async function runDueJobs(instanceId: string = INSTANCE_ID, limit = 50, o
       result.sent++
     } catch (e) {
       const message = String((e as Error)?.message ?? e).slice(0, 2000)
-      if (job.attempts >= job.maxAttempts) {
+      if (e instanceof JobCancelled) {
+        await db.update(jobs).set({ status: 'cancelled', lastError: message }).where(stillOurs)
+        result.cancelled++
+      } else if (job.attempts >= job.maxAttempts) {
         await db.update(jobs).set({ status: 'failed', lastError: message }).where(stillOurs)
         result.failed++
       } else {

@@ -5,7 +5,7 @@ import mysql from 'mysql2/promise'
 import { drizzle } from 'drizzle-orm/mysql2'
 import { eq, like } from 'drizzle-orm'
 import * as schema from '../../../server/database/schema'
-import { enqueueJob, enqueueJobs, registerJobHandler, runDueJobs, jobProgress, cancelPendingJobs, retryDelayMs } from '../../../server/services/jobs'
+import { enqueueJob, enqueueJobs, registerJobHandler, runDueJobs, jobProgress, cancelPendingJobs, retryDelayMs, JobCancelled } from '../../../server/services/jobs'
 import type { Db } from '../../../server/utils/db'
 
 const pools: mysql.Pool[] = []
@@ -128,5 +128,17 @@ describe('job table', () => {
     expect(row!.status).toBe('pending')
     expect(row!.payload).toEqual({ n: 1, again: true })
     expect(row!.runAt.getTime()).toBe(later.getTime())
+  })
+
+  it('a handler that cancels its job marks it cancelled, without retrying', async () => {
+    const kind = `test-cancelled-${tag}`
+    let calls = 0
+    registerJobHandler(kind, async () => { calls++; throw new JobCancelled('unsubscribed') })
+    await enqueueJob(kind, {}, new Date(Date.now() - 1000), `${kind}:1`, { db: a })
+    expect(await runDueJobs('instance-a', 10, { db: a, kinds: [kind] })).toMatchObject({ claimed: 1, cancelled: 1 })
+    expect(await runDueJobs('instance-a', 10, { db: a, kinds: [kind], now: () => new Date(Date.now() + 86_400_000) })).toMatchObject({ claimed: 0 })
+    const [row] = await a.select().from(schema.jobs).where(eq(schema.jobs.dedupeKey, `${kind}:1`))
+    expect(row).toMatchObject({ status: 'cancelled', lastError: 'unsubscribed' })
+    expect(calls).toBe(1)
   })
 })
