@@ -11,6 +11,7 @@ const ITEMS: NavItem[] = [
   { to: '/yards', label: 'My yards' },
   { to: '/advice', label: 'Advice', roles: ['advisor', 'coordinator'] },
   { to: '/drive', label: 'Pledge drive', roles: ['coordinator'] },
+  { to: '/admin/seed', label: 'Seed sale', roles: ['coordinator'] },
   { to: '/admin/users', label: 'People', roles: ['coordinator'] },
   { to: '/admin/mail', label: 'Sent mail', roles: ['coordinator'] },
 ]
