@@ -9,10 +9,13 @@ export interface NavItem {
 // The signed-in navigation; an item without roles is for everyone signed in.
 const ITEMS: NavItem[] = [
   { to: '/yards', label: 'My yards' },
+  { to: '/species', label: 'Species' },
+  { to: '/find-plants', label: 'Find plants' },
   { to: '/advice', label: 'Advice', roles: ['advisor', 'coordinator'] },
   { to: '/drive', label: 'Pledge drive', roles: ['coordinator'] },
   { to: '/admin/seed', label: 'Seed sale', roles: ['coordinator'] },
   { to: '/admin/users', label: 'People', roles: ['coordinator'] },
+  { to: '/admin/catalogue', label: 'Species list', roles: ['coordinator'] },
   { to: '/admin/mail', label: 'Sent mail', roles: ['coordinator'] },
 ]
 

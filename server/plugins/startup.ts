@@ -1,6 +1,7 @@
-// Start-up work: make sure the organisation exists and, in demo mode, load the demo data once.
+// Start-up work: make sure the organisation exists, load the species catalogue and, in demo mode, the demo data once.
 import { ensureOrganisation } from '../services/organisation'
 import { loadDemoData, loadDemoDrive } from '../services/demo-data'
+import { ensureCatalogue } from '../services/catalogue'
 
 export default defineNitroPlugin(() => {
   const config = useRuntimeConfig()
@@ -8,6 +9,8 @@ export default defineNitroPlugin(() => {
   setStartupWork((async () => {
     try {
       await ensureOrganisation()
+      // the species catalogue, once per catalogue version across instances: onceAcrossInstances('catalogue/<version>')
+      await ensureCatalogue()
       if (config.demoData) await onceAcrossInstances('demo-data/1', (tx) => loadDemoData(tx))
       if (config.demoData) await onceAcrossInstances('demo-drive/1', (tx) => loadDemoDrive(tx))
     } catch (e) {

@@ -7,8 +7,10 @@ import type { CatalogueEntry } from '../../../shared/utils/catalogue-rules'
 // The species catalogue. catalogue_species and catalogue_regions hold the USDA base with the coordinator's
 // overrides applied; the overrides themselves live in catalogue_overrides, so a catalogue reload re-applies them.
 
-/** Facts kept as JSON (seed facts, sources, estimated flags …): everything not needed to filter or sort. */
+/** A species' full facts (in each instance's memory: the committed file with the overrides applied). */
 export type CatalogueSpeciesData = Omit<CatalogueEntry, 'regions'> & { notes?: string | null }
+/** The little the species table needs beyond its columns; full facts are not stored twice. */
+export interface CatalogueRowData { estimated: string[]; spacing: number | null }
 
 export const catalogueSpecies = mysqlTable('catalogue_species', {
   id: id(),
@@ -28,7 +30,7 @@ export const catalogueSpecies = mysqlTable('catalogue_species', {
   toxic: boolean('toxic').notNull().default(false),
   hasFacts: boolean('has_facts').notNull().default(false),
   origin: mysqlEnum('origin', ['usda', 'coordinator']).notNull().default('usda'),
-  data: json('data').$type<CatalogueSpeciesData>().notNull(),
+  data: json('data').$type<CatalogueRowData>().notNull(),
 }, (t) => [
   uniqueIndex('catalogue_species_name_unique').on(t.scientificName),
   index('catalogue_species_common_idx').on(t.commonName),

@@ -1,0 +1,701 @@
+// The species catalogue: loading the committed USDA-derived file into MariaDB, the coordinator's overrides on top,
+// an in-memory copy per app instance (kept fresh by a stamp row in app_meta that every change bumps), lookups for
+// the score engine and the seed plan, the species table, good fits and swaps, and CSV import/export.
+import { gunzipSync } from 'node:zlib'
+import type { H3Event } from 'h3'
+import { and, asc, desc, eq, inArray, like, or, sql, type SQL } from 'drizzle-orm'
+import { format as formatSql } from 'mysql2'
+import { appMeta, catalogueOverrides, catalogueRegions, catalogueSpecies, type CatalogueSpeciesData } from '../database/schema'
+import type { Layer, RegionStatus, SpeciesDetails, SpeciesFacts } from '#shared/types/species'
+import {
+  COORDINATOR, USDA, nameKey, speciesOf, zoneIndex, refreshEstimates, type CatalogueEntry,
+} from '#shared/utils/catalogue-rules'
+import { readCatalogueCsv, catalogueToCsv } from '#shared/utils/catalogue-csv'
+import {
+  CSV_COLUMNS, IMPORT_MAX_BYTES, SPECIES_PAGE_SIZE, type ExportQuery, type ImportChange, type ImportError, type ImportPreview,
+  type OverrideField, type SpeciesListQuery,
+} from '#shared/schemas/species'
+import { REGIONS } from '#shared/utils/regions'
+
+type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
+type Executor = Db | Tx
+
+export const CATALOGUE_STAMP_KEY = 'catalogue/current'
+// how long an instance trusts its copy before re-reading the stamp (another instance may have imported)
+const STAMP_TTL_MS = 1000
+const SPECIES_CHUNK = 500
+const REGION_CHUNK = 5000
+
+interface CatalogueFile { header: { format: string; version: string; source: string; counts: Record<string, number> }; species: CatalogueEntry[] }
+
+let fileCache: Promise<CatalogueFile> | null = null
+
+/** The committed catalogue (server/assets/catalogue/catalogue.json.gz), bundled into the server build; read once. */
+export function readCatalogueFile(): Promise<CatalogueFile> {
+  fileCache ??= readCatalogueAsset()
+  fileCache.catch(() => { fileCache = null })
+  return fileCache
+}
+
+async function readCatalogueAsset(): Promise<CatalogueFile> {
+  const raw = await useStorage('assets:server').getItemRaw('catalogue/catalogue.json.gz')
+  if (!raw) throw new Error('server/assets/catalogue/catalogue.json.gz is missing: run npm run catalogue:build')
+  return JSON.parse(gunzipSync(Buffer.from(raw as Uint8Array)).toString('utf8')) as CatalogueFile
+}
+
+function rowOf(data: CatalogueSpeciesData, origin: 'usda' | 'coordinator') {
+  return {
+    scientificName: data.scientificName,
+    commonName: data.commonName,
+    layer: data.layer,
+    height: data.height,
+    spread: data.spread,
+    sun: data.sun.join(','),
+    moisture: data.moisture.join(','),
+    soil: data.soil.join(','),
+    bloomMonths: data.bloomMonths.join(','),
+    minZone: data.minZone,
+    minZoneIndex: zoneIndex(data.minZone),
+    toxic: data.toxic,
+    hasFacts: data.hasCharacteristics,
+    origin,
+    data: { estimated: data.estimated, spacing: data.spacing },
+  }
+}
+
+/** Multi-row INSERT formatted client-side: one round trip per chunk and no per-row ORM work (start-up speed). */
+async function bulkInsert(tx: Tx, table: string, columns: string[], rows: unknown[][], chunk: number) {
+  for (let i = 0; i < rows.length; i += chunk) {
+    await tx.execute(sql.raw(formatSql(`insert into \`${table}\` (${columns.map((c) => `\`${c}\``).join(', ')}) values ?`, [rows.slice(i, i + chunk)])))
+  }
+}
+
+/**
+ * Replaces the USDA base with the file's contents, the coordinator's overrides applied. Runs inside
+ * onceAcrossInstances, so one instance does it per catalogue version while the others wait and skip.
+ */
+export async function loadCatalogueBase(tx: Tx, file: CatalogueFile) {
+  await tx.delete(catalogueRegions)
+  await tx.delete(catalogueSpecies)
+  const overrides = groupOverrides(await tx.select().from(catalogueOverrides))
+  const species = file.species
+  const speciesRows = species.map((e, i) => {
+    const r = rowOf(withOverrides(e, overrides.get(nameKey(e.scientificName))), 'usda')
+    return [i + 1, r.scientificName, r.commonName, r.layer, r.height, r.spread, r.sun, r.moisture, r.soil, r.bloomMonths, r.minZone, r.minZoneIndex, r.toxic, r.hasFacts, r.origin, JSON.stringify(r.data)]
+  })
+  await bulkInsert(tx, 'catalogue_species', ['id', 'scientific_name', 'common_name', 'layer', 'height_m', 'spread_m', 'sun', 'moisture', 'soil', 'bloom_months', 'min_zone', 'min_zone_index', 'toxic', 'has_facts', 'origin', 'data'], speciesRows, 2000)
+  const regionRows: unknown[][] = []
+  species.forEach((e, i) => { for (const [region, status] of Object.entries(e.regions)) regionRows.push([region, i + 1, status, USDA]) })
+  await bulkInsert(tx, 'catalogue_regions', ['region', 'species_id', 'status', 'source'], regionRows, 10_000)
+  // coordinator species and regional statuses on top
+  const known = new Set(species.map((e) => nameKey(e.scientificName)))
+  await materialize(tx, [...overrides.entries()].filter(([k]) => !known.has(k)).flatMap(([, list]) => list), new Map())
+  await writeRegionOverrides(tx, [...overrides.values()].flat(), new Map(species.map((e, i) => [nameKey(e.scientificName), i + 1])))
+  await bumpStamp(tx, file.header.version)
+}
+
+/** Start-up: load this build's catalogue once across instances, then warm this instance's copy. */
+export async function ensureCatalogue() {
+  const file = await readCatalogueFile()
+  try {
+    await onceAcrossInstances(`catalogue/${file.header.version}`, (tx) => loadCatalogueBase(tx, file))
+  } catch (e) {
+    // drizzle's "Failed query" hides the database's own words in `cause`
+    throw new Error(`loading catalogue ${file.header.version} failed: ${(e as Error).message.slice(0, 200)}: ${((e as Error).cause as Error | undefined)?.message ?? ''}`)
+  }
+  await useCatalogue()
+}
+
+async function bumpStamp(db: Executor, version?: string) {
+  const [row] = await db.select({ value: appMeta.value }).from(appMeta).where(eq(appMeta.key, CATALOGUE_STAMP_KEY))
+  const prev = (row?.value ?? {}) as { version?: string; revision?: number }
+  const value = { version: version ?? prev.version ?? null, revision: (prev.revision ?? 0) + 1, at: new Date().toISOString() }
+  await db.insert(appMeta).values({ key: CATALOGUE_STAMP_KEY, value }).onDuplicateKeyUpdate({ set: { value } })
+  stampCheckedAt = 0
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// The in-memory copy
+
+export interface CachedSpecies {
+  id: number
+  origin: 'usda' | 'coordinator'
+  minZoneIndex: number | null
+  key: string
+  data: CatalogueSpeciesData
+}
+
+interface Catalogue {
+  stamp: string
+  list: CachedSpecies[]
+  byKey: Map<string, CachedSpecies>
+  byId: Map<number, CachedSpecies>
+  regions: Map<string, Promise<Map<number, RegionStatus>>>
+}
+
+let cache: Catalogue | null = null
+let building: { stamp: string; promise: Promise<Catalogue> } | null = null
+let stamp = ''
+let stampCheckedAt = 0
+
+async function currentStamp(): Promise<string> {
+  if (Date.now() - stampCheckedAt < STAMP_TTL_MS) return stamp
+  const [row] = await useDb().select({ value: appMeta.value }).from(appMeta).where(eq(appMeta.key, CATALOGUE_STAMP_KEY))
+  stamp = JSON.stringify(row?.value ?? null)
+  stampCheckedAt = Date.now()
+  return stamp
+}
+
+async function buildCatalogue(forStamp: string): Promise<Catalogue> {
+  const db = useDb()
+  const [file, ids, overrideRows] = await Promise.all([
+    readCatalogueFile(),
+    db.select({ id: catalogueSpecies.id, name: catalogueSpecies.scientificName, origin: catalogueSpecies.origin }).from(catalogueSpecies),
+    db.select().from(catalogueOverrides),
+  ])
+  const overrides = groupOverrides(overrideRows)
+  const entries = new Map<string, Omit<CatalogueEntry, 'regions'>>()
+  for (const e of file.species) entries.set(nameKey(e.scientificName), e)
+  const list: CachedSpecies[] = []
+  for (const row of ids) {
+    const key = nameKey(row.name)
+    const own = overrides.get(key)
+    const base = entries.get(key) ?? (row.origin === 'coordinator' ? newCoordinatorSpecies(row.name, (own?.find((o) => o.field === 'layer' && o.region === '')?.value as Layer) ?? 'ground') : undefined)
+    if (!base) continue
+    const data = withOverrides(base, own)
+    list.push({ id: row.id, origin: row.origin, minZoneIndex: zoneIndex(data.minZone), key, data })
+  }
+  return { stamp: forStamp, list, byKey: new Map(list.map((s) => [s.key, s])), byId: new Map(list.map((s) => [s.id, s])), regions: new Map() }
+}
+
+/** This instance's copy of the catalogue, rebuilt when the stamp row says the database changed. */
+export async function useCatalogue(): Promise<Catalogue> {
+  const s = await currentStamp()
+  if (cache && cache.stamp === s) return cache
+  if (!building || building.stamp !== s) {
+    const promise = buildCatalogue(s).then((c) => { if (building?.stamp === s) { cache = c; building = null } return c })
+    promise.catch(() => { if (building?.stamp === s) building = null })
+    building = { stamp: s, promise }
+  }
+  return building.promise
+}
+
+/** Status per species id in one region (absent ones are missing). */
+export function regionStatuses(cat: Catalogue, region: string): Promise<Map<number, RegionStatus>> {
+  let p = cat.regions.get(region)
+  if (!p) {
+    p = useDb().select({ id: catalogueRegions.speciesId, status: catalogueRegions.status }).from(catalogueRegions)
+      .where(eq(catalogueRegions.region, region))
+      .then((rows) => new Map(rows.map((r) => [r.id, r.status])))
+    p.catch(() => cat.regions.delete(region))
+    cat.regions.set(region, p)
+  }
+  return p
+}
+
+/** A species by name: exact (case, spacing, hybrid sign and a quoted cultivar ignored), else its species. */
+export function findSpecies(cat: Catalogue, name: string): CachedSpecies | undefined {
+  const key = nameKey(name)
+  return cat.byKey.get(key) ?? cat.byKey.get(speciesOf(key))
+}
+
+const FACT_ESTIMATES = ['spread', 'height', 'spacing'] as const
+
+export function factsOf(s: CachedSpecies, status: RegionStatus): SpeciesFacts {
+  const d = s.data
+  return {
+    scientificName: d.scientificName, commonName: d.commonName, layer: d.layer, status,
+    spread: d.spread, height: d.height, spacing: d.spacing, lawn: d.lawn,
+    estimated: FACT_ESTIMATES.filter((f) => d.estimated.includes(f)), toxic: d.toxic,
+  }
+}
+
+export function detailsOf(s: CachedSpecies, status: RegionStatus): SpeciesDetails {
+  const d = s.data
+  return {
+    ...factsOf(s, status),
+    family: d.family, growthHabit: d.growthHabit, bloomMonths: d.bloomMonths, minZone: d.minZone,
+    sun: d.sun, moisture: d.moisture, soil: d.soil, toxicity: d.toxicity,
+    propagatedBySeed: d.propagatedBySeed, coldStratification: d.coldStratification, coldMoistDays: d.coldMoistDays,
+    seedNeedsLight: d.seedNeedsLight, scarify: d.scarify, hotWaterSoak: d.hotWaterSoak, seedsPerPound: d.seedsPerPound,
+    seedlingsPerPot: d.seedlingsPerPot, commercialAvailability: d.commercialAvailability, wildlife: d.wildlife,
+    sources: d.sources, estimatedFields: d.estimated, noxiousIn: d.noxiousIn, notes: d.notes ?? null,
+    usdaSymbol: d.symbol || null, origin: s.origin, hasFacts: d.hasCharacteristics, flowerConspicuous: d.flowerConspicuous,
+    duration: d.duration,
+  }
+}
+
+/** Facts for the score engine, keyed by the lower-cased name as given; names not in the catalogue are left out. */
+export async function speciesFactsFor(names: Iterable<string>, region: string): Promise<Map<string, SpeciesFacts>> {
+  const cat = await useCatalogue()
+  const statuses = await regionStatuses(cat, region)
+  const out = new Map<string, SpeciesFacts>()
+  for (const name of names) {
+    const s = findSpecies(cat, name)
+    if (s) out.set(name.trim().toLowerCase(), factsOf(s, statuses.get(s.id) ?? 'absent'))
+  }
+  return out
+}
+
+/** Everything known of each named species in a region (seed plan, species page, fits), keyed by lower-cased name. */
+export async function getSpeciesDetails(names: string[], region: string): Promise<Map<string, SpeciesDetails>> {
+  const cat = await useCatalogue()
+  const statuses = await regionStatuses(cat, region)
+  const out = new Map<string, SpeciesDetails>()
+  for (const name of names) {
+    const s = findSpecies(cat, name)
+    if (s) out.set(name.trim().toLowerCase(), detailsOf(s, statuses.get(s.id) ?? 'absent'))
+  }
+  return out
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// The species table: SQL with server paging (indexes on region and name)
+
+export async function listSpecies(q: SpeciesListQuery) {
+  const db = useDb()
+  const page = q.page ?? 1
+  const pageSize = q.pageSize ?? SPECIES_PAGE_SIZE
+  const s = catalogueSpecies
+  const r = catalogueRegions
+  const status = sql<RegionStatus>`coalesce(${r.status}, 'absent')`
+  const where: SQL[] = []
+  const term = q.q?.replace(/[\\%_]/g, (c) => `\\${c}`)
+  if (term) where.push(or(like(s.scientificName, `%${term}%`), like(s.commonName, `%${term}%`))!)
+  if (q.layer) where.push(eq(s.layer, q.layer))
+  if (q.sun) where.push(sql`find_in_set(${q.sun}, ${s.sun})`)
+  if (q.moisture) where.push(sql`find_in_set(${q.moisture}, ${s.moisture})`)
+  if (q.soil) where.push(sql`find_in_set(${q.soil}, ${s.soil})`)
+  if (q.hasFacts) where.push(eq(s.hasFacts, true))
+  if (q.status) where.push(q.status === 'absent' ? sql`(${r.status} is null or ${r.status} = 'absent')` : eq(r.status, q.status))
+  const region = q.region ?? '--'
+  const join = and(eq(r.speciesId, s.id), eq(r.region, region))
+  const cond = where.length ? and(...where) : undefined
+  const dir = q.dir === 'desc' ? desc : asc
+  const sort = q.sort ?? (term ? 'relevance' : 'name')
+  const order: SQL[] = {
+    relevance: [desc(sql`(${s.scientificName} like ${`${term ?? ''}%`} or ${s.commonName} like ${`${term ?? ''}%`})`), desc(s.hasFacts), asc(s.scientificName)],
+    name: [dir(s.scientificName)],
+    common: [dir(sql`${s.commonName} is null`), dir(s.commonName), asc(s.scientificName)],
+    layer: [dir(s.layer), asc(s.scientificName)],
+    height: [dir(s.height), asc(s.scientificName)],
+    spread: [dir(s.spread), asc(s.scientificName)],
+    minZone: [dir(sql`${s.minZoneIndex} is null`), dir(s.minZoneIndex), asc(s.scientificName)],
+    status: [dir(status), asc(s.scientificName)],
+  }[sort]
+  const [rows, [count]] = await Promise.all([
+    db.select({
+      scientificName: s.scientificName, commonName: s.commonName, layer: s.layer, height: s.height, spread: s.spread,
+      sun: s.sun, moisture: s.moisture, soil: s.soil, bloomMonths: s.bloomMonths, minZone: s.minZone, toxic: s.toxic,
+      hasFacts: s.hasFacts, origin: s.origin, status, estimated: sql<string>`json_extract(${s.data}, '$.estimated')`,
+      spacing: sql<number | null>`json_value(${s.data}, '$.spacing')`,
+    }).from(s).leftJoin(r, join).where(cond).orderBy(...order).limit(pageSize).offset((page - 1) * pageSize),
+    db.select({ n: sql<number>`count(*)` }).from(s).leftJoin(r, join).where(cond),
+  ])
+  const split = (v: string) => (v ? v.split(',') : [])
+  return {
+    items: rows.map((row) => ({
+      ...row,
+      status: q.region ? row.status : null,
+      sun: split(row.sun), moisture: split(row.moisture), soil: split(row.soil),
+      bloomMonths: split(row.bloomMonths).map(Number),
+      spacing: row.spacing === null ? null : Number(row.spacing),
+      estimated: (typeof row.estimated === 'string' ? JSON.parse(row.estimated) : row.estimated ?? []) as string[],
+    })),
+    total: Number(count?.n ?? 0),
+    page,
+    pageSize,
+  }
+}
+
+/** One species with where it grows and the coordinator's overrides, or null. */
+export async function speciesPage(name: string, region?: string) {
+  const cat = await useCatalogue()
+  const s = cat.byKey.get(nameKey(name.replace(/[_+]/g, ' ')))
+  if (!s) return null
+  const db = useDb()
+  const [regions, overrides] = await Promise.all([
+    db.select({ region: catalogueRegions.region, status: catalogueRegions.status, source: catalogueRegions.source }).from(catalogueRegions).where(eq(catalogueRegions.speciesId, s.id)),
+    db.select({ region: catalogueOverrides.region, field: catalogueOverrides.field, value: catalogueOverrides.value, source: catalogueOverrides.source, updatedAt: catalogueOverrides.updatedAt })
+      .from(catalogueOverrides).where(eq(catalogueOverrides.scientificName, s.data.scientificName)),
+  ])
+  const status = region ? (regions.find((r) => r.region === region)?.status ?? 'absent') : 'absent'
+  const named = regions.map((r) => ({ ...r, name: REGIONS[r.region] ?? r.region })).sort((a, b) => a.name.localeCompare(b.name))
+  return {
+    ...detailsOf(s, status),
+    region: region ?? null,
+    status: region ? status : null,
+    usdaName: s.data.usdaName,
+    nativeIn: named.filter((r) => r.status === 'native').map((r) => r.region),
+    regions: named,
+    overrides,
+  }
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Good fits and swaps, over the in-memory copy
+
+export interface FitConditions {
+  region: string
+  zone?: string | null
+  sun?: string
+  soil?: string
+  moisture?: string
+  layer?: Layer
+  maxSpread?: number
+}
+
+export interface YardContext {
+  /** months (1–12) in which some native planting blooms */
+  bloomMonths: Set<number>
+  /** layers that have at least one native planting */
+  layers: Set<Layer>
+}
+
+export interface FitItem {
+  scientificName: string
+  commonName: string | null
+  layer: Layer
+  spread: number
+  height: number
+  spacing: number | null
+  minZone: string | null
+  sun: string[]
+  soil: string[]
+  moisture: string[]
+  bloomMonths: number[]
+  toxic: boolean
+  estimated: string[]
+  status: RegionStatus
+  score: number
+  reasons: string[]
+}
+
+const MONTH_NAMES = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December']
+// the months a yard shows bloom in (northern temperate growing season)
+export const BLOOM_SEASON = [3, 4, 5, 6, 7, 8, 9, 10]
+const SUN_WORDS: Record<string, string> = { full: 'full sun', part: 'part shade', shade: 'shade' }
+const SOIL_WORDS: Record<string, string> = { sand: 'sandy', loam: 'loamy', clay: 'clay' }
+const MOISTURE_WORDS: Record<string, string> = { dry: 'dry', medium: 'medium (moist, well-drained)', wet: 'wet' }
+
+/** Whether a species passes the hard filters: native in the region, hardy in the zone, takes the site, fits. */
+function passes(s: CachedSpecies, status: RegionStatus | undefined, c: FitConditions, zoneIdx: number | null): boolean {
+  const d = s.data
+  if (status !== 'native') return false
+  if (zoneIdx !== null && (s.minZoneIndex === null || s.minZoneIndex > zoneIdx)) return false
+  if (c.layer && d.layer !== c.layer) return false
+  if (c.sun && !d.sun.includes(c.sun as never)) return false
+  if (c.soil && !d.soil.includes(c.soil as never)) return false
+  if (c.moisture && !d.moisture.includes(c.moisture as never)) return false
+  if (c.maxSpread !== undefined && d.spread > c.maxSpread) return false
+  return true
+}
+
+/** Score 0–100 and the reasons in plain words. */
+function scoreFit(s: CachedSpecies, c: FitConditions, yard: YardContext | null): { score: number; reasons: string[] } {
+  const d = s.data
+  const reasons: string[] = []
+  let score = 0
+  const site: string[] = []
+  if (c.sun) { score += 15; site.push(SUN_WORDS[c.sun]!) }
+  if (c.soil) { score += 10; site.push(`${SOIL_WORDS[c.soil]} soil`) }
+  if (c.moisture) { score += 10; site.push(`${MOISTURE_WORDS[c.moisture]} ground`) }
+  if (site.length) reasons.push(`Takes ${site.join(', ')}`)
+  if (c.zone && d.minZone) { score += 10; reasons.push(`Hardy in zone ${c.zone} (to zone ${d.minZone})`) }
+  const showy = d.flowerConspicuous !== false
+  if (yard) {
+    const gaps = showy ? d.bloomMonths.filter((m) => BLOOM_SEASON.includes(m) && !yard.bloomMonths.has(m)) : []
+    if (gaps.length) {
+      score += Math.min(20, gaps.length * 10)
+      reasons.push(`Blooms in ${gaps.map((m) => MONTH_NAMES[m - 1]).join(' and ')}, when nothing native in your yard does`)
+    }
+    if (!yard.layers.has(d.layer)) { score += 15; reasons.push(`Adds the ${d.layer === 'ground' ? 'ground' : d.layer} layer your yard lacks`) }
+  } else if (showy && d.bloomMonths.length) {
+    score += 5
+    reasons.push(`Blooms in ${d.bloomMonths.map((m) => MONTH_NAMES[m - 1]).join(', ')}`)
+  }
+  if (d.wildlife.includes('seed or fruit for birds')) { score += 8; reasons.push('Seed or fruit for birds') }
+  if (d.wildlife.includes('flowers for pollinators')) { score += 7; reasons.push('Flowers for bees and butterflies') }
+  if (d.commercialAvailability === 'Routinely Available') { score += 10; reasons.push('Available from nurseries') }
+  if (d.estimated.includes('spread')) reasons.push('Mature spread is an estimate')
+  return { score: Math.min(100, score), reasons }
+}
+
+function fitItem(s: CachedSpecies, status: RegionStatus, score: number, reasons: string[]): FitItem {
+  const d = s.data
+  return {
+    scientificName: d.scientificName, commonName: d.commonName, layer: d.layer, spread: d.spread, height: d.height,
+    spacing: d.spacing, minZone: d.minZone, sun: d.sun, soil: d.soil, moisture: d.moisture, bloomMonths: d.bloomMonths,
+    toxic: d.toxic, estimated: d.estimated, status, score, reasons,
+  }
+}
+
+/** Native species that fit a spot, best first. */
+export async function findFits(c: FitConditions, yard: YardContext | null, limit = 50): Promise<FitItem[]> {
+  const cat = await useCatalogue()
+  const statuses = await regionStatuses(cat, c.region)
+  const zoneIdx = zoneIndex(c.zone)
+  const scored: { s: CachedSpecies; score: number; reasons: string[] }[] = []
+  for (const [id, status] of statuses) {
+    if (status !== 'native') continue
+    const s = cat.byId.get(id)
+    if (!s || !passes(s, status, c, zoneIdx)) continue
+    scored.push({ s, ...scoreFit(s, c, yard) })
+  }
+  scored.sort((a, b) => b.score - a.score || a.s.data.scientificName.localeCompare(b.s.data.scientificName))
+  return scored.slice(0, limit).map(({ s, score, reasons }) => fitItem(s, 'native', score, reasons))
+}
+
+/** What a yard's native plantings already give: bloom months and layers. */
+export async function yardContext(plantingNames: string[], region: string): Promise<YardContext> {
+  const details = await getSpeciesDetails(plantingNames, region)
+  const ctx: YardContext = { bloomMonths: new Set(), layers: new Set() }
+  for (const d of details.values()) {
+    if (d.status !== 'native') continue
+    ctx.layers.add(d.layer)
+    if (d.flowerConspicuous !== false) for (const m of d.bloomMonths) ctx.bloomMonths.add(m)
+  }
+  return ctx
+}
+
+/** Natives of the same layer and similar size (half to twice the height) for a species, or null when unknown. */
+export async function findSwaps(name: string, c: Omit<FitConditions, 'layer' | 'maxSpread'>, limit = 20) {
+  const cat = await useCatalogue()
+  const target = findSpecies(cat, name)
+  if (!target) return null
+  const statuses = await regionStatuses(cat, c.region)
+  const targetStatus = statuses.get(target.id) ?? 'absent'
+  const species = { scientificName: target.data.scientificName, commonName: target.data.commonName, status: targetStatus, layer: target.data.layer, height: target.data.height, spread: target.data.spread }
+  if (targetStatus === 'native') return { species, items: [] as FitItem[] }
+  const zoneIdx = zoneIndex(c.zone)
+  const h0 = target.data.height
+  const cond: FitConditions = { ...c, layer: target.data.layer }
+  const scored: { s: CachedSpecies; score: number; reasons: string[] }[] = []
+  for (const [id, status] of statuses) {
+    if (status !== 'native') continue
+    const s = cat.byId.get(id)
+    if (!s || !passes(s, status, cond, zoneIdx)) continue
+    const ratio = s.data.height / h0
+    if (ratio < 0.5 || ratio > 2) continue
+    const fit = scoreFit(s, cond, null)
+    const closeness = Math.round(20 * (1 - Math.abs(Math.log2(ratio))))
+    scored.push({
+      s, score: Math.min(100, fit.score + closeness),
+      reasons: [`Same layer (${s.data.layer}) and similar size: ${s.data.height} m tall, against ${h0} m`, ...fit.reasons],
+    })
+  }
+  scored.sort((a, b) => b.score - a.score || a.s.data.scientificName.localeCompare(b.s.data.scientificName))
+  return { species, items: scored.slice(0, limit).map(({ s, score, reasons }) => fitItem(s, 'native', score, reasons)) }
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Coordinator overrides: CSV preview and apply, materializing into the species and region tables
+
+type OverrideRow = Pick<typeof catalogueOverrides.$inferSelect, 'scientificName' | 'region' | 'field' | 'value' | 'source'>
+
+function sameValue(a: unknown, b: unknown) {
+  return JSON.stringify(a ?? null) === JSON.stringify(b ?? null)
+}
+
+function currentValue(data: CatalogueSpeciesData, field: OverrideField): unknown {
+  return (data as unknown as Record<string, unknown>)[field] ?? null
+}
+
+interface ImportPlan { preview: ImportPreview; overrides: OverrideRow[] }
+
+const MAX_LISTED = 500
+
+/** Reads the CSV and works out what would change, without writing anything. */
+export async function planImport(text: string): Promise<ImportPlan> {
+  const { entries, errors, rows } = readCatalogueCsv(text)
+  stampCheckedAt = 0
+  const cat = await useCatalogue()
+  const changes: ImportChange[] = []
+  const overrides: OverrideRow[] = []
+  const newSpecies = new Set<string>()
+  const layerGiven = new Set(entries.filter((e) => e.values.layer !== undefined).map((e) => nameKey(e.scientificName)))
+  const factSetAt = new Map<string, { row: number; value: unknown }>()
+  const planned = new Set<string>()
+  for (const e of entries) {
+    let conflict = false
+    for (const [field, value] of Object.entries(e.values)) {
+      if (field === 'status') continue
+      const k = `${nameKey(e.scientificName)}|${field}`
+      const prev = factSetAt.get(k)
+      if (prev && !sameValue(prev.value, value)) { errors.push({ row: e.row, column: field, message: `Row ${prev.row} gives this species a different ${field}` }); conflict = true }
+      else factSetAt.set(k, { row: e.row, value })
+    }
+    if (conflict) continue
+    const s = cat.byKey.get(nameKey(e.scientificName))
+    const name = s?.data.scientificName ?? e.scientificName
+    if (!s) {
+      if (!layerGiven.has(nameKey(e.scientificName))) {
+        errors.push({ row: e.row, column: 'layer', message: `${e.scientificName} is not in the catalogue: give its layer (tree, shrub or ground) to add it` })
+        continue
+      }
+      newSpecies.add(e.scientificName)
+    }
+    const statuses = e.region ? await regionStatuses(cat, e.region) : null
+    for (const [field, to] of Object.entries(e.values) as [OverrideField, unknown][]) {
+      const from = field === 'status' ? (s ? statuses!.get(s.id) ?? 'absent' : 'absent') : s ? currentValue(s.data, field) : null
+      if (s && sameValue(from, to)) continue
+      // a row's region is for its status; its other facts hold everywhere
+      const region = field === 'status' ? e.region : ''
+      const planKey = `${nameKey(name)}|${region}|${field}`
+      if (planned.has(planKey)) continue
+      planned.add(planKey)
+      changes.push({ row: e.row, scientificName: name, region, field, from, to })
+      overrides.push({ scientificName: name, region, field, value: to, source: e.source })
+    }
+  }
+  errors.sort((a, b) => a.row - b.row)
+  return {
+    preview: { rows, errors: errors.slice(0, MAX_LISTED), errorCount: errors.length, changes: changes.slice(0, MAX_LISTED), changeCount: changes.length, newSpecies: [...newSpecies] },
+    overrides,
+  }
+}
+
+/** Applies a CSV all-or-nothing: any row error writes nothing; the writes share one transaction. */
+export async function applyImport(text: string, userId: number) {
+  const plan = await planImport(text)
+  if (plan.preview.errorCount) return { applied: false as const, preview: plan.preview }
+  await useDb().transaction(async (tx) => {
+    for (let i = 0; i < plan.overrides.length; i += 1000) {
+      await tx.insert(catalogueOverrides).values(plan.overrides.slice(i, i + 1000).map((o) => ({ ...o, createdBy: userId })))
+        .onDuplicateKeyUpdate({ set: { value: sql`values(${catalogueOverrides.value})`, source: sql`values(${catalogueOverrides.source})`, createdBy: userId } })
+    }
+    await materialize(tx, plan.overrides, (await useCatalogue()).byKey)
+    await bumpStamp(tx)
+  })
+  stampCheckedAt = 0
+  return { applied: true as const, preview: plan.preview }
+}
+
+function groupOverrides(rows: OverrideRow[]): Map<string, OverrideRow[]> {
+  const byName = new Map<string, OverrideRow[]>()
+  for (const o of rows) {
+    const k = nameKey(o.scientificName)
+    let list = byName.get(k)
+    if (!list) byName.set(k, (list = []))
+    list.push(o)
+  }
+  return byName
+}
+
+/** A species' facts with the coordinator's field overrides (region '') applied; the base is not changed. */
+export function withOverrides(base: Omit<CatalogueEntry, 'regions'> | CatalogueSpeciesData, overrides: OverrideRow[] | undefined): CatalogueSpeciesData {
+  const { regions: _, ...plain } = base as CatalogueEntry
+  const facts = (overrides ?? []).filter((o) => o.region === '')
+  if (!facts.length) return plain
+  const data: CatalogueSpeciesData = structuredClone(plain)
+  const record = data as unknown as Record<string, unknown>
+  const changed = new Set<string>()
+  for (const o of facts) {
+    changed.add(o.field)
+    record[o.field] = o.value
+    data.sources[o.field] = o.source
+    data.estimated = data.estimated.filter((f) => f !== o.field)
+    if (o.field === 'toxicity') { data.toxic = o.value !== 'none'; data.sources.toxic = o.source }
+  }
+  refreshEstimates(data, changed)
+  return data
+}
+
+/** Region statuses from overrides into catalogue_regions. */
+async function writeRegionOverrides(tx: Tx, overrides: OverrideRow[], idByKey: Map<string, number>) {
+  for (const o of overrides) {
+    if (o.region === '' || o.field !== 'status') continue
+    const id = idByKey.get(nameKey(o.scientificName))
+    if (!id) continue
+    const status = o.value as RegionStatus
+    await tx.insert(catalogueRegions).values({ region: o.region, speciesId: id, status, source: o.source })
+      .onDuplicateKeyUpdate({ set: { status, source: o.source } })
+  }
+}
+
+/**
+ * Writes changed species into catalogue_species (creating coordinator species) and their region statuses.
+ * `current` holds the in-memory facts of species already known (by name key); `overrides` are the new rows.
+ */
+async function materialize(tx: Tx, overrides: OverrideRow[], current: Map<string, CachedSpecies>) {
+  if (!overrides.length) return
+  const byName = groupOverrides(overrides)
+  const idByKey = new Map<string, number>()
+  for (const [key, list] of byName) {
+    const known = current.get(key)
+    let id = known?.id
+    const facts = list.filter((o) => o.region === '')
+    if (!known) {
+      const [existing] = await tx.select({ id: catalogueSpecies.id }).from(catalogueSpecies).where(eq(catalogueSpecies.scientificName, list[0]!.scientificName))
+      id = existing?.id
+      const layer = facts.find((o) => o.field === 'layer')?.value as Layer | undefined
+      if (!id && layer) {
+        const data = withOverrides(newCoordinatorSpecies(list[0]!.scientificName, layer), facts)
+        id = insertedId(await tx.insert(catalogueSpecies).values(rowOf(data, 'coordinator')).$returningId())
+      }
+    } else if (facts.length) {
+      await tx.update(catalogueSpecies).set(rowOf(withOverrides(known.data, facts), known.origin)).where(eq(catalogueSpecies.id, known.id))
+    }
+    if (id) idByKey.set(key, id)
+  }
+  await writeRegionOverrides(tx, overrides, idByKey)
+}
+
+function newCoordinatorSpecies(name: string, layer: Layer): CatalogueSpeciesData {
+  const data: CatalogueSpeciesData = {
+    scientificName: name, usdaName: null, commonName: null, symbol: '', family: null, genus: name.split(' ')[0] ?? null,
+    growthHabit: null, duration: null, layer, height: 0, spread: 0, spacing: null, lawn: false, sun: [], moisture: [], soil: [],
+    bloomMonths: [], flowerConspicuous: null, minTemperatureF: null, minZone: null, toxic: false, toxicity: null,
+    propagatedBySeed: null, coldStratification: null, coldMoistDays: null, seedNeedsLight: null, scarify: false,
+    hotWaterSoak: false, seedsPerPound: null, seedlingsPerPot: null, commercialAvailability: null, wildlife: [], noxiousIn: [],
+    hasCharacteristics: false, sources: { layer: COORDINATOR }, estimated: ['height', 'spread', 'spacing', 'seedNeedsLight', 'scarify', 'hotWaterSoak', 'seedlingsPerPot'],
+  }
+  refreshEstimates(data, ['layer', 'height', 'spread', 'spacing', 'seedsPerPound', 'coldStratification'])
+  return data
+}
+
+// ---------------------------------------------------------------------------------------------------------
+// Export
+
+export async function exportCsv(q: ExportQuery): Promise<string> {
+  const cat = await useCatalogue()
+  const statuses = q.region ? await regionStatuses(cat, q.region) : null
+  const term = q.q?.toLowerCase()
+  const rows: Record<string, unknown>[] = []
+  for (const s of cat.list) {
+    const d = s.data
+    if (q.layer && d.layer !== q.layer) continue
+    if (term && !s.key.includes(term) && !(d.commonName ?? '').toLowerCase().includes(term)) continue
+    const status = statuses ? statuses.get(s.id) ?? 'absent' : null
+    if (q.status && status !== q.status) continue
+    const record: Record<string, unknown> = { ...d, region: q.region ?? '', status, source: '', estimated: d.estimated, origin: s.origin, usdaSymbol: d.symbol }
+    rows.push(record)
+  }
+  rows.sort((a, b) => String(a.scientificName).localeCompare(String(b.scientificName)))
+  return catalogueToCsv([...CSV_COLUMNS, 'estimated', 'origin', 'usdaSymbol'], rows)
+}
+
+export type { ImportError }
+
+/**
+ * The uploaded CSV as text: text/csv or text/plain, at most IMPORT_MAX_BYTES, valid UTF-8 with no NUL bytes
+ * (a spreadsheet saved as .xlsx or any binary fails here, before parsing).
+ */
+export async function readCsvUpload(event: H3Event): Promise<string> {
+  const type = (getRequestHeader(event, 'content-type') ?? '').split(';')[0]!.trim().toLowerCase()
+  if (type !== 'text/csv' && type !== 'text/plain') throw createError({ status: 415, message: 'Upload the file as CSV (text/csv)', data: { fields: { file: 'Save the sheet as CSV (UTF-8) and upload that' } } })
+  const declared = Number(getRequestHeader(event, 'content-length') ?? 0)
+  const tooBig = () => createError({ status: 413, message: `The file is larger than ${IMPORT_MAX_BYTES / 1024 / 1024} MB`, data: { fields: { file: 'Split the file into smaller ones' } } })
+  if (declared > IMPORT_MAX_BYTES) throw tooBig()
+  const body = await readRawBody(event, false)
+  if (!body || body.length === 0) throw createError({ status: 400, message: 'The file is empty', data: { fields: { file: 'The file is empty' } } })
+  if (body.length > IMPORT_MAX_BYTES) throw tooBig()
+  let text: string
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(body)
+  } catch {
+    throw createError({ status: 400, message: 'The file is not UTF-8 text', data: { fields: { file: 'Save the sheet as CSV (UTF-8)' } } })
+  }
+  if (text.includes('\u0000')) throw createError({ status: 400, message: 'The file is not a CSV text file', data: { fields: { file: 'Save the sheet as CSV (UTF-8)' } } })
+  return text
+}

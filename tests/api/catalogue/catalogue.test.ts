@@ -1,0 +1,190 @@
+// The species catalogue over HTTP: table, species page, fits, swaps, CSV import (all-or-nothing) and export.
+// Statuses named here come from the USDA PLANTS files (plant_distribution, plant_native_status_codes,
+// noxious_composite_2015) through the committed catalogue.
+import { describe, it, expect, beforeAll } from 'vitest'
+import { Client, demo, newHomeowner } from '../../support/http'
+import { zoneIndex } from '#shared/utils/catalogue-rules'
+
+const anon = new Client()
+let coordinator: Client
+beforeAll(async () => { coordinator = await demo('coordinator') })
+
+const detail = async (name: string, region: string) => (await anon.get(`/api/species/${encodeURIComponent(name)}?region=${region}`)).body
+
+describe('species table', () => {
+  it('finds a species by common name with its status in the region', async () => {
+    const r = await anon.get('/api/species?region=US-OH&q=butterfly%20milkweed')
+    expect(r.status).toBe(200)
+    const item = r.body.items.find((i: any) => i.scientificName === 'Asclepias tuberosa')
+    // plant_distribution.csv.gz records ASTU in Ohio; native status L48(N)
+    expect(item).toMatchObject({ commonName: 'butterfly milkweed', layer: 'ground', status: 'native', minZone: '3b' })
+    expect(item.estimated).toContain('spread')
+    expect(r.body.total).toBeGreaterThanOrEqual(1)
+  })
+  it('filters by status and layer, sorts and pages on the server', async () => {
+    const r = await anon.get('/api/species?region=US-CT&status=invasive&layer=shrub&pageSize=200')
+    // noxious_composite_2015.csv.gz lists Berberis thunbergii in CT
+    expect(r.body.items.map((i: any) => i.scientificName)).toContain('Berberis thunbergii')
+    expect(r.body.items.every((i: any) => i.status === 'invasive' && i.layer === 'shrub')).toBe(true)
+    const p1 = await anon.get('/api/species?region=US-OH&layer=tree&sort=height&dir=desc&page=1&pageSize=20')
+    const p2 = await anon.get('/api/species?region=US-OH&layer=tree&sort=height&dir=desc&page=2&pageSize=20')
+    expect(p1.body.total).toBe(p2.body.total)
+    const heights = [...p1.body.items, ...p2.body.items].map((i: any) => i.height)
+    expect(heights).toEqual([...heights].sort((a, b) => b - a))
+    expect(new Set([...p1.body.items, ...p2.body.items].map((i: any) => i.scientificName)).size).toBe(40)
+  })
+  it('rejects a status filter without a region', async () => {
+    const r = await anon.get('/api/species?status=native')
+    expect(r.status).toBe(400)
+    expect(r.body.data.fields.status).toBeTruthy()
+  })
+})
+
+describe('species page', () => {
+  it('gives sources, where native, and absent where USDA does not record it', async () => {
+    const d = await detail('Amelanchier canadensis', 'US-OH')
+    // plant_distribution.csv.gz: AMCA4 recorded in Pennsylvania, not Ohio
+    expect(d.status).toBe('absent')
+    expect(d.nativeIn).toContain('US-PA')
+    expect(d.nativeIn).not.toContain('US-OH')
+    expect(d.sources.height).toBe('USDA PLANTS')
+    expect(d.sources.spread).toMatch(/^estimated/)
+    expect(d.estimatedFields).toContain('spread')
+  })
+  it('Poa pratensis is native and introduced; Lolium perenne introduced', async () => {
+    expect((await detail('Poa pratensis', 'US-OH')).status).toBe('nativeAndIntroduced')
+    expect((await detail('Lolium perenne', 'US-OH')).status).toBe('introduced')
+  })
+  it('404s an unknown name', async () => {
+    expect((await anon.get('/api/species/Nonexistia%20imaginaria')).status).toBe(404)
+  })
+})
+
+describe('good fits', () => {
+  const cases = [
+    'region=US-OH&zone=6a&sun=part&soil=clay&moisture=wet&layer=shrub&maxSpread=2',
+    'region=US-OH&zone=5b&sun=full&soil=sand&moisture=dry',
+    'region=CA-ON&zone=4a&sun=shade&layer=ground',
+    'region=US-TX&zone=8b&layer=tree',
+  ]
+  for (const q of cases) {
+    it(`never returns a non-native or non-hardy species (${q})`, async () => {
+      const r = await anon.get(`/api/fits?${q}&limit=200`)
+      expect(r.status).toBe(200)
+      expect(r.body.items.length).toBeGreaterThan(0)
+      const params = new URLSearchParams(q)
+      const zone = zoneIndex(params.get('zone'))!
+      for (const item of r.body.items) {
+        expect(item.status).toBe('native')
+        expect(zoneIndex(item.minZone)).not.toBeNull()
+        expect(zoneIndex(item.minZone)!).toBeLessThanOrEqual(zone)
+        if (params.get('sun')) expect(item.sun).toContain(params.get('sun'))
+        if (params.get('layer')) expect(item.layer).toBe(params.get('layer'))
+        if (params.get('maxSpread')) expect(item.spread).toBeLessThanOrEqual(Number(params.get('maxSpread')))
+        expect(item.reasons.length).toBeGreaterThan(0)
+      }
+      const scores = r.body.items.map((i: any) => i.score)
+      expect(scores).toEqual([...scores].sort((a: number, b: number) => b - a))
+      // the species page agrees with the fit on status (independent route and query)
+      for (const item of r.body.items.slice(0, 5)) expect((await detail(item.scientificName, params.get('region')!)).status).toBe('native')
+    })
+  }
+  it('uses a yard\'s plantings for bloom and layer gaps', async () => {
+    const { client } = await newHomeowner('fits')
+    const doc = { boundary: [[0, 0], [10, 0], [10, 10], [0, 10]], plantings: [{ id: 'a', species: 'Asclepias tuberosa', x: 1, y: 1, count: 3 }] }
+    const yard = (await client.post('/api/yards', { name: 'Fits yard', region: 'US-OH', document: doc })).body
+    const r = await client.get(`/api/fits?yardId=${yard.id}&zone=6a&sun=full&limit=100`)
+    expect(r.status).toBe(200)
+    const reasons = r.body.items.flatMap((i: any) => i.reasons).join(' | ')
+    expect(reasons).toMatch(/when nothing native in your yard does/)
+    expect(reasons).toMatch(/layer your yard lacks/)
+    // the yard's only native blooms in July (USDA bloom_period Mid Summer): no fit claims to fill July
+    expect(reasons).not.toMatch(/Blooms in [^|]*July[^|]*when nothing/)
+  })
+})
+
+describe('swaps', () => {
+  it('offers native shrubs of similar size for Japanese barberry', async () => {
+    const r = await anon.get('/api/swaps?region=US-OH&zone=6a&species=Berberis%20thunbergii&sun=full')
+    expect(r.status).toBe(200)
+    expect(r.body.species.status).toBe('introduced')
+    const h0 = r.body.species.height
+    expect(r.body.items.length).toBeGreaterThan(0)
+    for (const i of r.body.items) {
+      expect(i).toMatchObject({ layer: 'shrub', status: 'native' })
+      expect(i.height).toBeGreaterThanOrEqual(h0 / 2)
+      expect(i.height).toBeLessThanOrEqual(h0 * 2)
+      expect(zoneIndex(i.minZone)!).toBeLessThanOrEqual(zoneIndex('6a')!)
+    }
+  })
+  it('has nothing to swap for a native', async () => {
+    const r = await anon.get('/api/swaps?region=US-OH&species=Asclepias%20tuberosa')
+    expect(r.body.items).toEqual([])
+  })
+})
+
+describe('coordinator CSV import and export', () => {
+  const post = (path: string, body: string | Uint8Array, type = 'text/csv') => coordinator.request('POST', path, body, { 'content-type': type })
+
+  it('previews row-level errors without writing, and a file with any bad row changes nothing', async () => {
+    const before = await detail('Zizia aurea', 'US-OH')
+    const csv = [
+      'scientificName,region,status,spread,layer,coldMoistDays',
+      'Zizia aurea,,,0.9,,',
+      'Zizia aurea,US-OH,bogus,,,',
+      'Testia wildwardensis,,,0.5,,',
+      'Echinacea purpurea,,,,,400',
+    ].join('\n')
+    const preview = await post('/api/catalogue/import/preview', csv)
+    expect(preview.status).toBe(200)
+    const errs = preview.body.errors.map((e: any) => `${e.row}:${e.column}`)
+    expect(errs).toEqual(expect.arrayContaining(['3:status', '4:layer', '5:coldMoistDays']))
+    const apply = await post('/api/catalogue/import/apply', csv)
+    expect(apply.status).toBe(400)
+    expect(apply.body.data.errorCount).toBe(preview.body.errorCount)
+    const after = await detail('Zizia aurea', 'US-OH')
+    expect(after.spread).toBe(before.spread)
+    expect(after.sources.spread).toBe(before.sources.spread)
+    expect((await anon.get('/api/species/Testia%20wildwardensis')).status).toBe(404)
+  })
+
+  it('applies a clean file in one go: facts, a regional status, a new species', async () => {
+    const csv = 'scientificName,region,status,spread,layer,commonName,source\nZizia aurea,,,3 ft,,,\nZizia aurea,US-AK,native,,,,coordinator\nTestia wildwardensis,US-OH,native,0.5,ground,test plant,from memory\n'
+    const preview = await post('/api/catalogue/import/preview', csv)
+    expect(preview.body.errors).toEqual([])
+    expect(preview.body.newSpecies).toEqual(['Testia wildwardensis'])
+    const apply = await post('/api/catalogue/import/apply', csv)
+    expect(apply.status).toBe(200)
+    const z = await detail('Zizia aurea', 'US-AK')
+    // 3 ft × 0.3048 m/ft = 0.91 m (to the centimetre); spacing follows an estimated default from the spread
+    expect(z.spread).toBe(0.91)
+    expect(z.sources.spread).toBe('coordinator')
+    expect(z.estimatedFields).not.toContain('spread')
+    expect(z.status).toBe('native')
+    const t = await detail('Testia wildwardensis', 'US-OH')
+    expect(t).toMatchObject({ status: 'native', layer: 'ground', origin: 'coordinator', commonName: 'test plant' })
+    expect(t.sources.commonName).toBe('from memory')
+    // the same file again changes nothing
+    expect((await post('/api/catalogue/import/preview', csv)).body.changeCount).toBe(0)
+  })
+
+  it('checks the upload: type, size and content', async () => {
+    expect((await post('/api/catalogue/import/preview', '{"a":1}', 'application/json')).status).toBe(415)
+    expect((await post('/api/catalogue/import/preview', new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0, 0, 0xff, 0xfe]))).status).toBe(400)
+    expect((await post('/api/catalogue/import/preview', 'a'.repeat(5 * 1024 * 1024 + 10))).status).toBe(413)
+    const noHeader = await post('/api/catalogue/import/preview', 'name,spread\nx,1\n')
+    expect(noHeader.body.errors[0]).toMatchObject({ row: 1, column: 'scientificName' })
+  })
+
+  it('exports CSV that imports back with no changes', async () => {
+    const r = await coordinator.get('/api/catalogue/export?region=US-OH&q=asclepias')
+    expect(r.status).toBe(200)
+    expect(r.headers.get('content-type')).toMatch(/text\/csv/)
+    const text = r.body as string
+    expect(text.split('\n')[0]).toMatch(/^scientificName,region,status,commonName,layer/)
+    expect(text).toMatch(/Asclepias tuberosa,US-OH,native,butterfly milkweed,ground/)
+    const back = await post('/api/catalogue/import/preview', text)
+    expect(back.body.errors).toEqual([])
+    expect(back.body.changeCount).toBe(0)
+  })
+})
