@@ -24,7 +24,7 @@ const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISO
  */
 function shares(lot: number, drift: number) {
   const lawn = lot - drift
-  const plants = drift / (0.866 * 0.3 * 0.3)
+  const plants = Math.ceil(drift / (0.866 * 0.3 * 0.3))
   const volNative = drift * 0.2
   const volTotal = volNative + lawn * 0.08
   return {

@@ -101,14 +101,14 @@ export async function loadDemoData(tx: Tx) {
 // and a snapshot at each pledge and one after planting, so the dashboard's charts have real history.
 const DEMO_HOUSEHOLDS = [
   { email: 'household-penhallow@example.org', name: 'Ash Penhallow', neighbourhood: 'Millrace', bed: 0.2, daysAgo: 36 },
-  { email: 'household-marchbank@example.org', name: 'Lee Marchbank', neighbourhood: 'Millrace', bed: 0.75, daysAgo: 30 },
+  { email: 'household-marchbank@example.org', name: 'Lee Marchbank', neighbourhood: 'Millrace', bed: 0.95, daysAgo: 30 },
   { email: 'household-greaves@example.org', name: 'Toni Greaves', neighbourhood: 'Larch Hill', bed: 0.5, daysAgo: 21 },
-  { email: 'household-oldacre@example.org', name: 'Kit Oldacre', neighbourhood: 'Larch Hill', bed: 0.85, daysAgo: 12 },
+  { email: 'household-oldacre@example.org', name: 'Kit Oldacre', neighbourhood: 'Larch Hill', bed: 0.9, daysAgo: 12 },
 ] as const
 
-/** A 20 m × 30 m lot of lawn with a house and a native meadow bed covering `share` of the open ground. */
+/** A 20 m × 30 m lot of lawn with a house and a native sedge bed across the front `share` of the 20 m before the house. */
 function demoHouseholdYard(name: string, share: number): YardDocument {
-  const depth = Math.max(1, Math.round(18 * share * 10) / 10)
+  const depth = Math.max(1, Math.round(20 * share * 10) / 10)
   return {
     format: YARD_FORMAT, name, region: 'US-OH', zone: '6a', units: 'ft', boundary: rect(0, 0, 20, 30),
     areas: [{ id: 'house', kind: 'building', z: 10, points: rect(3, 20, 14, 8), label: 'House' }, { id: 'bed', kind: 'bed', z: 5, points: rect(0, 0, 20, depth), label: 'Meadow bed' }],
