@@ -184,6 +184,8 @@ describe('the yard editor', () => {
     await page.locator('[data-tool=bed]').click()
     await dragOnPlan(page, [0.3, 0.3], [0.6, 0.6])
     await expect.poll(() => page.locator('[data-test=save-state]').getAttribute('data-state'), { timeout: 10_000 }).toBe('offline')
+    // the page asks before leaving with unsaved work; leave anyway, as a crash or a forced reload would
+    page.on('dialog', (d) => d.accept())
     await page.reload()
     await page.locator('[data-test=draft-offer]').waitFor()
     expect(await elementCount(page)).toBe(1)
