@@ -105,14 +105,14 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
     const typical = TYPICAL_SIZE[layer]
     const height = p.height ?? f?.height ?? typical.height
     if (p.height === undefined && (!f || f.estimated.includes('height'))) warnings.push({ id: p.id, message: `The height of ${name} is an estimate (${height} m); measure or check it` })
-    const base = { index, id: p.id, name, status, layer, cultivar, height, lawn: false }
 
     if (isAreaPlanting(p)) {
       const spacing = p.spacing !== undefined ? p.spacing : f ? f.spacing : null
       const ring = p.points as Ring
       const area = layer === 'ground' ? visibleArea(ring, lot, cutters.get(index) ?? []).area : ringInLot(ring, lot).area
       if (area === 0) warnings.push({ id: p.id, message: layer === 'ground' ? `${name} is outside the lot or wholly covered by shapes drawn above it, so it counts nothing` : `${name} is outside the lot, so it counts nothing` })
-      return { ...base, isArea: true, lawn: f?.lawn === true, spread: null, spacing, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height }
+      // built as one literal: spreading a shared base object here cost more than the geometry
+      return { index, id: p.id, name, status, layer, isArea: true, lawn: f?.lawn === true, cultivar, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height, spread: null, height, spacing }
     }
     const spread = p.spread ?? f?.spread ?? typical.spread
     if (p.spread === undefined && (!f || f.estimated.includes('spread'))) warnings.push({ id: p.id, message: `The spread of ${name} is an estimate (${spread} m); measure or check it` })
@@ -121,7 +121,7 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
     const area = circleAreaInLot(p.x!, p.y!, (spread / 2) * Math.sqrt(count), lot)
     const centreIn = !lot || pointInRing([p.x!, p.y!], lot.ring)
     if (!centreIn) warnings.push({ id: p.id, message: `${name} stands outside the lot, so its plants are not counted` })
-    return { ...base, isArea: false, spread, spacing: null, count: centreIn ? count : 0, area, volume: area * height }
+    return { index, id: p.id, name, status, layer, isArea: false, lawn: false, cultivar, count: centreIn ? count : 0, area, volume: area * height, spread, height, spacing: null }
   })
   return { doc, region, lot, plantings, warnings }
 }

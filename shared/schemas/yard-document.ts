@@ -79,7 +79,7 @@ export const yardBackdrop = z.object({
   locked: z.boolean().default(false),
 })
 
-export const yardDocumentShape = z.object({
+const yardDocumentBase = z.object({
   format: z.literal(YARD_FORMAT).default(YARD_FORMAT),
   name: z.string().trim().max(120).optional(),
   region: regionCode.optional(),
@@ -93,34 +93,131 @@ export const yardDocumentShape = z.object({
   plantings: z.array(yardPlanting).max(MAX_PLANTINGS, `A yard has at most ${MAX_PLANTINGS} plantings`).default([]),
   lines: z.array(yardLine).max(500).default([]),
   backdrop: yardBackdrop.nullable().optional(),
-}).superRefine((doc, ctx) => {
+})
+
+/** Checks across elements, on a document whose fields are each well formed: ids, outlines, point or area. */
+function documentIssues(doc: z.output<typeof yardDocumentBase>): Array<{ path: PropertyKey[]; message: string }> {
+  const issues: Array<{ path: PropertyKey[]; message: string }> = []
   const seen = new Set<string>()
   for (const [list, items] of [['areas', doc.areas], ['plantings', doc.plantings], ['lines', doc.lines]] as const) {
     items.forEach((item, i) => {
-      if (seen.has(item.id)) ctx.addIssue({ code: 'custom', path: [list, i, 'id'], message: `Duplicate element id "${item.id}"`, input: item.id })
+      if (seen.has(item.id)) issues.push({ path: [list, i, 'id'], message: `Duplicate element id "${item.id}"` })
       seen.add(item.id)
     })
   }
   const crossing = (list: string, i: number, pts: Point[]) => {
     const edge = firstSelfIntersection(pts)
-    if (edge >= 0) ctx.addIssue({ code: 'custom', path: [list, i, 'points'], message: `The outline crosses itself (edge ${edge + 1}) or has no area`, input: pts })
+    if (edge >= 0) issues.push({ path: [list, i, 'points'], message: `The outline crosses itself (edge ${edge + 1}) or has no area` })
   }
   doc.areas.forEach((a, i) => crossing('areas', i, a.points as Point[]))
   doc.plantings.forEach((p, i) => {
     const issue = plantingShapeIssue(p)
-    if (issue) ctx.addIssue({ code: 'custom', path: ['plantings', i, ...issue.path], message: issue.message, input: p })
+    if (issue) issues.push({ path: ['plantings', i, ...issue.path], message: issue.message })
     else if (p.points) crossing('plantings', i, p.points as Point[])
   })
+  return issues
+}
+
+/** The whole document in plain zod: the reference the fast path below must agree with (and the error messages). */
+export const yardDocumentShape = yardDocumentBase.superRefine((doc, ctx) => {
+  for (const issue of documentIssues(doc)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message, input: doc })
 })
 
+const yardDocumentRest = yardDocumentBase.omit({ areas: true, plantings: true })
 const NOUNS: Record<string, string> = { areas: 'Area', plantings: 'Planting', lines: 'Line' }
+
+// Fast path for the two long lists: a plain loop accepting exactly what the zod element schemas accept and
+// building the same output (unknown keys dropped, names trimmed, area z defaulting to 0), or null to let zod
+// parse (and explain). The editor posts the whole document on every change; zod's checks cost ~3 µs a planting.
+const isNum = (v: unknown, min: number, max: number): v is number => typeof v === 'number' && Number.isFinite(v) && v >= min && v <= max
+const isInt = (v: unknown, min: number, max: number) => isNum(v, min, max) && Number.isSafeInteger(v)
+const isPos = (v: unknown, max: number) => typeof v === 'number' && Number.isFinite(v) && v > 0 && v <= max
+const isStr = (v: unknown, max: number): v is string => typeof v === 'string' && v.length <= max
+const isPlain = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v)
+
+function fastRing(v: unknown, min: number): Point[] | null {
+  if (!Array.isArray(v) || v.length < min || v.length > MAX_VERTICES) return null
+  const out: Point[] = new Array(v.length)
+  for (let i = 0; i < v.length; i++) {
+    const p = v[i]
+    if (!Array.isArray(p) || p.length !== 2 || !isNum(p[0], -MAX_COORD, MAX_COORD) || !isNum(p[1], -MAX_COORD, MAX_COORD)) return null
+    out[i] = [p[0], p[1]]
+  }
+  return out
+}
+
+function fastPlanting(v: unknown): YardPlanting | null {
+  if (!isPlain(v)) return null
+  const { id, species, cultivar, label, x, y, count, spread, z: zz, points, spacing, height } = v
+  if (typeof id !== 'string' || id.length < 1 || id.length > 64) return null
+  const out: YardPlanting = { id, species: null }
+  if (species === null) out.species = null
+  else if (typeof species === 'string' && species.trim().length >= 1 && species.trim().length <= 200) out.species = species.trim()
+  else return null
+  if (cultivar !== undefined) { if (cultivar === null) out.cultivar = null; else if (typeof cultivar === 'string' && cultivar.trim().length <= 120) out.cultivar = cultivar.trim(); else return null }
+  if (label !== undefined) { if (isStr(label, 200)) out.label = label; else return null }
+  if (x !== undefined) { if (isNum(x, -MAX_COORD, MAX_COORD)) out.x = x; else return null }
+  if (y !== undefined) { if (isNum(y, -MAX_COORD, MAX_COORD)) out.y = y; else return null }
+  if (count !== undefined) { if (isInt(count, 1, 100_000)) out.count = count as number; else return null }
+  if (spread !== undefined) { if (isPos(spread, 60)) out.spread = spread as number; else return null }
+  if (zz !== undefined) { if (isInt(zz, -1_000_000, 1_000_000)) out.z = zz as number; else return null }
+  if (points !== undefined) { const ring = fastRing(points, 3); if (ring) out.points = ring; else return null }
+  if (spacing !== undefined) { if (spacing === null || isPos(spacing, 20)) out.spacing = spacing as number | null; else return null }
+  if (height !== undefined) { if (isPos(height, 120)) out.height = height as number; else return null }
+  return out
+}
+
+const AREA_KIND_SET = new Set<unknown>(AREA_KINDS)
+const SUN_SET = new Set<unknown>(SUN)
+const SOIL_SET = new Set<unknown>(SOIL)
+const MOISTURE_SET = new Set<unknown>(MOISTURE)
+
+function fastArea(v: unknown): YardArea | null {
+  if (!isPlain(v)) return null
+  const { id, kind, z: zz, points, sun, soil, moisture, label } = v
+  if (typeof id !== 'string' || id.length < 1 || id.length > 64 || !AREA_KIND_SET.has(kind)) return null
+  if (zz !== undefined && !isInt(zz, -1_000_000, 1_000_000)) return null
+  const ring = fastRing(points, 3)
+  if (!ring) return null
+  const out: YardArea = { id, kind: kind as YardArea['kind'], z: (zz as number | undefined) ?? 0, points: ring }
+  if (sun !== undefined) { if (SUN_SET.has(sun)) out.sun = sun as YardArea['sun']; else return null }
+  if (soil !== undefined) { if (SOIL_SET.has(soil)) out.soil = soil as YardArea['soil']; else return null }
+  if (moisture !== undefined) { if (MOISTURE_SET.has(moisture)) out.moisture = moisture as YardArea['moisture']; else return null }
+  if (label !== undefined) { if (isStr(label, 200)) out.label = label; else return null }
+  return out
+}
+
+function fastList<T>(v: unknown, max: number, one: (x: unknown) => T | null): T[] | null {
+  if (v === undefined) return []
+  if (!Array.isArray(v) || v.length > max) return null
+  const out: T[] = new Array(v.length)
+  for (let i = 0; i < v.length; i++) {
+    const item = one(v[i])
+    if (!item) return null
+    out[i] = item
+  }
+  return out
+}
+
+function fastDocument(value: unknown): z.output<typeof yardDocumentBase> | null {
+  if (!isPlain(value)) return null
+  const plantings = fastList(value.plantings, MAX_PLANTINGS, fastPlanting)
+  const areas = plantings && fastList(value.areas, MAX_AREAS, fastArea)
+  if (!plantings || !areas) return null
+  const { plantings: _p, areas: _a, ...rest } = value
+  const parsed = yardDocumentRest.safeParse(rest)
+  if (!parsed.success) return null
+  const doc = { ...parsed.data, areas, plantings }
+  return documentIssues(doc).length ? null : doc
+}
 
 /**
  * The yard document schema. Errors inside a list keep their path (`plantings.3.points`) and name the element
- * (`Planting "p4": …`), so a 400 for a yard of a thousand plantings says which one is wrong. The element
- * checks run once over the parsed document, which keeps validating big documents cheap.
+ * (`Planting "p4": …`), so a 400 for a yard of a thousand plantings says which one is wrong.
  */
 export const yardDocument = z.custom<z.input<typeof yardDocumentShape>>(() => true).transform((value, ctx): z.output<typeof yardDocumentShape> => {
+  const fast = fastDocument(value)
+  if (fast) return fast
   const result = yardDocumentShape.safeParse(value)
   if (result.success) return result.data
   for (const issue of result.error.issues) {
