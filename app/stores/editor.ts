@@ -100,7 +100,7 @@ export function duplicateElements(doc: YardDocument, ids: string[], dx: number, 
   for (const id of ids) {
     const el = findElement(doc, id)
     if (!el || el.type === 'lot') continue
-    const copy = structuredClone(el.item)
+    const copy = JSON.parse(JSON.stringify(el.item)) as typeof el.item
     copy.id = newId(el.type === 'area' ? 'a' : el.type === 'planting' ? 'p' : 'l', taken)
     taken.add(copy.id)
     if (el.type === 'area') doc.areas.push(copy as YardArea)
@@ -171,7 +171,7 @@ export const useEditorStore = defineStore('editor', () => {
     region.value = yard.region
     access.value = yard.access
     version.value = yard.version
-    doc.value = { ...emptyYardDocument(), ...structuredClone(yard.document) }
+    doc.value = { ...emptyYardDocument(), ...JSON.parse(JSON.stringify(yard.document)) }
     selection.value = []
     past.value = []
     future.value = []
@@ -212,7 +212,7 @@ export const useEditorStore = defineStore('editor', () => {
   function replaceDocument(label: string, next: YardDocument, options: { select?: string[] } = {}) {
     return applyChange(label, (d) => {
       for (const k of Object.keys(d)) delete (d as Record<string, unknown>)[k]
-      Object.assign(d, emptyYardDocument(), structuredClone(next))
+      Object.assign(d, emptyYardDocument(), JSON.parse(JSON.stringify(next)))
     }, { select: options.select ?? [] })
   }
 

@@ -191,7 +191,7 @@ describe('the yard editor', () => {
     expect(await elementCount(page)).toBe(1)
     await page.unroute(`**/api/yards/${id}`)
     await page.locator('[data-test=restore-draft]').click()
-    expect(await elementCount(page)).toBe(2)
+    await expect.poll(() => elementCount(page)).toBe(2)
     await expect.poll(async () => (await savedDocument(context, id)).areas.length, { timeout: 10_000 }).toBe(1)
     await page.reload()
     await page.locator('[data-test=yard-canvas] canvas').first().waitFor()
