@@ -1,4 +1,5 @@
-import { mysqlTable, varchar, mysqlEnum, text, int, double, date, decimal, boolean, timestamp, index, uniqueIndex } from 'drizzle-orm/mysql-core'
+import { mysqlTable, varchar, mysqlEnum, text, int, tinyint, double, date, decimal, boolean, timestamp, index, uniqueIndex } from 'drizzle-orm/mysql-core'
+import { sql } from 'drizzle-orm'
 import { id, ref, timestamps } from './columns'
 import { users } from './accounts'
 import { yards } from './yards'
@@ -49,6 +50,10 @@ export const pledges = mysqlTable('pledges', {
   status: mysqlEnum('status', PLEDGE_STATUSES).notNull().default('pledged'),
   pledgedOn: date('pledged_on', { mode: 'string' }).notNull(),
   ...shareColumns(''),
+  // the histogram bin (tenths, a share of 1 in the last) of each share, kept by the database for an index-only count
+  countBin: tinyint('count_bin').generatedAlwaysAs(sql`LEAST(FLOOR(count_share * 10), 9)`, { mode: 'stored' }),
+  areaBin: tinyint('area_bin').generatedAlwaysAs(sql`LEAST(FLOOR(area_share * 10), 9)`, { mode: 'stored' }),
+  volumeBin: tinyint('volume_bin').generatedAlwaysAs(sql`LEAST(FLOOR(volume_share * 10), 9)`, { mode: 'stored' }),
   baseAreaNative: double('base_area_native').notNull().default(0),
   baseLawnArea: double('base_lawn_area').notNull().default(0),
   baseShare: double('base_share').notNull().default(0),
@@ -59,11 +64,18 @@ export const pledges = mysqlTable('pledges', {
 }, (t) => [
   uniqueIndex('pledges_yard_drive_unique').on(t.yardId, t.driveId),
   index('pledges_drive_status_idx').on(t.driveId, t.consent, t.status),
-  index('pledges_drive_neighbourhood_idx').on(t.driveId, t.consent, t.neighbourhood),
+  // covers every dashboard aggregate (totals, bins, neighbourhoods), so they read the index and never the rows
+  index('pledges_dashboard_idx').on(t.driveId, t.consent, t.neighbourhood, t.status, t.countShare, t.areaShare, t.volumeShare,
+    t.areaNative, t.baseAreaNative, t.lawnArea, t.baseLawnArea),
+  index('pledges_drive_count_bin_idx').on(t.driveId, t.consent, t.countBin),
+  index('pledges_drive_area_bin_idx').on(t.driveId, t.consent, t.areaBin),
+  index('pledges_drive_volume_bin_idx').on(t.driveId, t.consent, t.volumeBin),
+  // the table's sorts
   index('pledges_drive_count_idx').on(t.driveId, t.consent, t.countShare),
   index('pledges_drive_area_idx').on(t.driveId, t.consent, t.areaShare),
   index('pledges_drive_volume_idx').on(t.driveId, t.consent, t.volumeShare),
-  index('pledges_drive_day_idx').on(t.driveId, t.consent, t.pledgedOn),
+  // pledges per day, and the join to snapshots for progress over time
+  index('pledges_drive_day_yard_idx').on(t.driveId, t.consent, t.pledgedOn, t.yardId),
 ])
 
 /** The shares of a pledged yard on one day (the day's last save wins), for progress over time. */
@@ -73,7 +85,12 @@ export const shareSnapshots = mysqlTable('share_snapshots', {
   day: date('day', { mode: 'string' }).notNull(),
   ...shareColumns(''),
   ...timestamps,
-}, (t) => [uniqueIndex('share_snapshots_yard_day_unique').on(t.yardId, t.day), index('share_snapshots_day_idx').on(t.day)])
+}, (t) => [
+  uniqueIndex('share_snapshots_yard_day_unique').on(t.yardId, t.day),
+  index('share_snapshots_day_idx').on(t.day),
+  // progress over time reads each yard's days and shares from the index alone
+  index('share_snapshots_yard_day_shares_idx').on(t.yardId, t.day, t.countShare, t.areaShare, t.volumeShare),
+])
 
 export const MAILING_KINDS = ['reminder', 'thanks'] as const
 export const MAILING_AUDIENCES = ['all', 'pledged', 'reached', 'verified'] as const
