@@ -61,7 +61,7 @@ type Drawn = { order: [number, number, number]; ring: Ring; plantingIndex: numbe
  * For each ground-layer area planting, the shapes drawn above it: anything with a higher z, and at equal z
  * the later one (areas sit under plantings of the same z, so a drift drawn in its bed stays visible).
  */
-export function groundCutters(doc: YardDocument, isGroundArea: (index: number) => boolean): Map<number, Cutter[]> {
+export function groundCutters(doc: YardDocument, isGroundArea: (index: number) => boolean, shapes = new Map<number, Shape>()): Map<number, Cutter[]> {
   const drawn: Drawn[] = []
   doc.areas.forEach((a, i) => drawn.push({ order: [a.z ?? 0, 0, i], ring: a.points as Ring, plantingIndex: null }))
   doc.plantings.forEach((p, i) => {
@@ -70,7 +70,7 @@ export function groundCutters(doc: YardDocument, isGroundArea: (index: number) =
   drawn.sort((a, b) => a.order[0] - b.order[0] || a.order[1] - b.order[1] || a.order[2] - b.order[2])
   const out = new Map<number, Cutter[]>()
   const cutters = drawn.map((d) => cutterOf(d.ring))
-  drawn.forEach((d, k) => { if (d.plantingIndex !== null) out.set(d.plantingIndex, cutters.slice(k + 1)) })
+  drawn.forEach((d, k) => { if (d.plantingIndex !== null) { out.set(d.plantingIndex, cutters.slice(k + 1)); shapes.set(d.plantingIndex, cutters[k]!) } })
   return out
 }
 
@@ -88,7 +88,8 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
 
   const factsOf = doc.plantings.map((p) => (p.species ? facts.get(factsKey(p.species)) : undefined))
   const layers = doc.plantings.map((p, i) => factsOf[i]?.layer ?? layerBySize(p))
-  const cutters = groundCutters(doc, (i) => layers[i] === 'ground')
+  const shapes = new Map<number, Shape>()
+  const cutters = groundCutters(doc, (i) => layers[i] === 'ground', shapes)
 
   const plantings = doc.plantings.map((p, index): PlantingMeasure => {
     const f = factsOf[index]
@@ -109,7 +110,7 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
     if (isAreaPlanting(p)) {
       const spacing = p.spacing !== undefined ? p.spacing : f ? f.spacing : null
       const ring = p.points as Ring
-      const area = layer === 'ground' ? visibleArea(ring, lot, cutters.get(index) ?? []).area : ringInLot(ring, lot).area
+      const area = layer === 'ground' ? visibleArea(ring, lot, cutters.get(index) ?? [], shapes.get(index)).area : ringInLot(ring, lot).area
       if (area === 0) warnings.push({ id: p.id, message: layer === 'ground' ? `${name} is outside the lot or wholly covered by shapes drawn above it, so it counts nothing` : `${name} is outside the lot, so it counts nothing` })
       // built as one literal: spreading a shared base object here cost more than the geometry
       return { index, id: p.id, name, status, layer, isArea: true, lawn: f?.lawn === true, cultivar, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height, spread: null, height, spacing }

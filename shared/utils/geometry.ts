@@ -106,7 +106,19 @@ export function distanceToRing(p: Point, ring: Ring): number {
 }
 
 /** A shape prepared once for many containment tests: the lot, or a ground planting's outline. */
-export interface Shape { ring: Ring; box: Box; convex: boolean; area: number; sign: number }
+/** `rect`: an axis-aligned rectangle, for which the box says everything. */
+export interface Shape { ring: Ring; box: Box; convex: boolean; rect: boolean; area: number; sign: number }
+
+function isBoxRing(ring: Ring, box: Box): boolean {
+  if (ring.length !== 4) return false
+  for (let i = 0; i < 4; i++) {
+    const [x1, y1] = ring[i]!
+    const [x2, y2] = ring[(i + 1) % 4]!
+    if (x1 !== x2 && y1 !== y2) return false
+    if ((x1 !== box.minX && x1 !== box.maxX) || (y1 !== box.minY && y1 !== box.maxY)) return false
+  }
+  return box.maxX > box.minX && box.maxY > box.minY
+}
 
 export function shapeOf(ring: Ring): Shape {
   let signed = 0
@@ -115,7 +127,10 @@ export function shapeOf(ring: Ring): Shape {
     const [x2, y2] = ring[(i + 1) % n]!
     signed += x1 * y2 - x2 * y1
   }
-  return { ring, box: boxOf(ring), convex: isConvex(ring), area: Math.abs(signed / 2), sign: signed >= 0 ? 1 : -1 }
+  const box = boxOf(ring)
+  // four corners of the box joined by axis-parallel edges, covering the whole box (so not folded back)
+  const rect = isBoxRing(ring, box) && Math.abs(signed / 2) === (box.maxX - box.minX) * (box.maxY - box.minY)
+  return { ring, box, convex: rect || isConvex(ring), rect, area: Math.abs(signed / 2), sign: signed >= 0 ? 1 : -1 }
 }
 
 // a point in the closed convex shape (on the outline counts); tolerance is relative to the edge length
@@ -133,6 +148,7 @@ function inConvexClosed(p: Point, s: Shape): boolean {
 /** The closed disc lies wholly inside the shape: exact for any simple outline (centre inside, edges ≥ r away). */
 export function circleInside(cx: number, cy: number, r: number, s: Shape): boolean {
   if (cx - r < s.box.minX || cx + r > s.box.maxX || cy - r < s.box.minY || cy + r > s.box.maxY) return false
+  if (s.rect) return true
   if (!pointInRing([cx, cy], s.ring)) return false
   return distanceToRing([cx, cy], s.ring) >= r
 }
@@ -160,6 +176,7 @@ function anyEdgesMeet(a: Ring, b: Ring, bBox: Box): boolean {
  */
 export function ringInside(ring: Ring, ringBox: Box, s: Shape): boolean {
   if (!boxInside(ringBox, s.box)) return false
+  if (s.rect) return true
   if (s.convex) return ring.every((p) => inConvexClosed(p, s))
   if (!pointInRing(ring[0]!, s.ring)) return false
   return !anyEdgesMeet(ring, s.ring, s.box)
@@ -188,16 +205,32 @@ function separatedConvex(a: Shape, b: Shape): boolean {
 /** The two outlines share no interior, in the cases that are sure without clipping (else false). */
 export function ringsApart(a: Shape, b: Shape): boolean {
   if (!boxesOverlap(a.box, b.box)) return true
+  if (a.rect && b.rect) return false
   if (a.convex && b.convex) return separatedConvex(a, b)
   if (anyEdgesMeet(a.ring, b.ring, b.box)) return false
   // no edge meets: either one holds the other, or they are apart
   return !pointInRing(a.ring[0]!, b.ring) && !pointInRing(b.ring[0]!, a.ring)
 }
 
+type Geom = MultiPolygon | Polygon
+const snap = (g: Geom): Geom => JSON.parse(JSON.stringify(g), (_, v) => (typeof v === 'number' ? Math.round(v * 1e6) / 1e6 : v))
+
+// polygon-clipping now and then fails on nearly degenerate input ("Unable to complete output ring"): retry once
+// on a 1 µm grid, which moves nothing that matters for a yard
+function robust(op: (a: Geom, ...b: Geom[]) => MultiPolygon): (a: Geom, ...b: Geom[]) => MultiPolygon {
+  return (a, ...b) => {
+    try {
+      return op(a, ...b)
+    } catch {
+      return op(snap(a), ...b.map(snap))
+    }
+  }
+}
+
 export const clip = {
-  intersection: (a: MultiPolygon | Polygon, ...b: Array<MultiPolygon | Polygon>) => polygonClipping.intersection(a as never, ...(b as never[])) as MultiPolygon,
-  difference: (a: MultiPolygon | Polygon, ...b: Array<MultiPolygon | Polygon>) => polygonClipping.difference(a as never, ...(b as never[])) as MultiPolygon,
-  union: (a: MultiPolygon | Polygon, ...b: Array<MultiPolygon | Polygon>) => polygonClipping.union(a as never, ...(b as never[])) as MultiPolygon,
+  intersection: robust((a, ...b) => polygonClipping.intersection(a as never, ...(b as never[])) as MultiPolygon),
+  difference: robust((a, ...b) => polygonClipping.difference(a as never, ...(b as never[])) as MultiPolygon),
+  union: robust((a, ...b) => polygonClipping.union(a as never, ...(b as never[])) as MultiPolygon),
 }
 
 /** Area of a circle clipped to the lot (null: no lot drawn, nothing is clipped). */
@@ -209,10 +242,10 @@ export function circleAreaInLot(cx: number, cy: number, r: number, lot: Shape | 
 }
 
 /** The part of a ring inside the lot, as a multipolygon, and its area. */
-export function ringInLot(ring: Ring, lot: Shape | null): { geom: MultiPolygon; area: number; whole: boolean } {
-  const box = boxOf(ring)
-  if (!lot || ringInside(ring, box, lot)) return { geom: [[ring]], area: ringArea(ring), whole: true }
-  if (ringsApart(shapeOf(ring), lot)) return { geom: [], area: 0, whole: false }
+export function ringInLot(ring: Ring, lot: Shape | null, prepared?: Shape): { geom: MultiPolygon; area: number; whole: boolean } {
+  const box = prepared?.box ?? boxOf(ring)
+  if (!lot || ringInside(ring, box, lot)) return { geom: [[ring]], area: prepared?.area ?? ringArea(ring), whole: true }
+  if (ringsApart(prepared ?? shapeOf(ring), lot)) return { geom: [], area: 0, whole: false }
   const geom = clip.intersection([ring], [lot.ring])
   return { geom, area: multiPolygonArea(geom), whole: false }
 }
@@ -303,22 +336,29 @@ export const cutterOf = shapeOf
  * Cutters that overlap nothing else are subtracted exactly (a cutter inside another counts once, as the outer
  * one); only groups of cutters that really cross each other or the outline go to polygon-clipping.
  */
-export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[]): { area: number; inLot: number } {
-  const inLot = ringInLot(ring, lot)
+export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[], prepared?: Shape): { area: number; inLot: number } {
+  const self = prepared ?? shapeOf(ring)
+  const inLot = ringInLot(ring, lot, self)
   if (inLot.area === 0) return { area: 0, inLot: 0 }
-  const self = shapeOf(ring)
   const near = above.filter((c) => boxesOverlap(c.box, self.box) && !ringsApart(c, self))
   if (!near.length) return { area: inLot.area, inLot: inLot.area }
-  // group the cutters that overlap each other (union-find over overlapping pairs)
+  // group the cutters that overlap each other: union-find over pairs, swept in x so far-apart pairs are skipped
+  near.sort((a, b) => a.box.minX - b.box.minX)
   const parent = near.map((_, i) => i)
   const find = (i: number): number => (parent[i] === i ? i : (parent[i] = find(parent[i]!)))
   for (let i = 0; i < near.length; i++) {
-    for (let j = i + 1; j < near.length; j++) {
-      if (boxesOverlap(near[i]!.box, near[j]!.box) && !ringsApart(near[i]!, near[j]!)) parent[find(i)] = find(j)
+    const a = near[i]!
+    for (let j = i + 1; j < near.length && near[j]!.box.minX < a.box.maxX; j++) {
+      if (boxesOverlap(a.box, near[j]!.box) && !ringsApart(a, near[j]!)) parent[find(i)] = find(j)
     }
   }
   const groups = new Map<number, Cutter[]>()
-  near.forEach((c, i) => { const r = find(i); groups.set(r, [...(groups.get(r) ?? []), c]) })
+  near.forEach((c, i) => {
+    const r = find(i)
+    const g = groups.get(r)
+    if (g) g.push(c)
+    else groups.set(r, [c])
+  })
   const hard: Ring[] = []
   let subtract = 0
   for (const group of groups.values()) {

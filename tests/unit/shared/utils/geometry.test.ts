@@ -152,7 +152,9 @@ describe('ground-layer cutting', () => {
     // a hair apart: outlines that differ in the last bit of a coordinate (found by the random yards below)
     expect(convexUnionArea([shapeOf(rect(0, 0, 0.5, 0.5)), shapeOf(rect(0, 0, 0.5000000000000001, 0.5))])).toBeCloseTo(0.25, 12)
     fc.assert(fc.property(fc.array(convex, { minLength: 1, maxLength: 7 }), (rings) => {
-      const expected = pcArea(polygonClipping.union(...rings.map((r) => [r]) as [never]))
+      // polygon-clipping itself fails on a few nearly degenerate inputs (about 1 in 20,000 here): those prove nothing
+      let expected = 0
+      try { expected = pcArea(polygonClipping.union(...rings.map((r) => [r]) as [never])) } catch { fc.pre(false) }
       expect(convexUnionArea(rings.map(shapeOf))).toBeCloseTo(expected, 6)
     }), { numRuns: 500 })
   }, 30_000)
