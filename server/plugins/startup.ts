@@ -10,7 +10,7 @@ export default defineNitroPlugin(() => {
     try {
       await ensureOrganisation()
       // the species catalogue, once per catalogue version across instances: onceAcrossInstances('catalogue/<version>')
-      await ensureCatalogue()
+      await ensureCatalogue(!!config.demoData)
       if (config.demoData) await onceAcrossInstances('demo-data/1', (tx) => loadDemoData(tx))
       if (config.demoData) await onceAcrossInstances('demo-drive/1', (tx) => loadDemoDrive(tx))
     } catch (e) {

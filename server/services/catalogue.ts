@@ -66,7 +66,7 @@ function rowOf(data: CatalogueSpeciesData, origin: 'usda' | 'coordinator') {
 /** Multi-row INSERT formatted client-side: one round trip per chunk and no per-row ORM work (start-up speed). */
 async function bulkInsert(tx: Tx, table: string, columns: string[], rows: unknown[][], chunk: number) {
   for (let i = 0; i < rows.length; i += chunk) {
-    await tx.execute(sql.raw(formatSql(`insert into \`${table}\` (${columns.map((c) => `\`${c}\``).join(', ')}) values ?`, [rows.slice(i, i + chunk)])))
+    await tx.execute(sql.raw(formatSql(`insert into \`${table}\` (${columns.map((c) => `\`${c}\``).join(', ')}) values ?`, [rows.slice(i, i + chunk) as never])))
   }
 }
 
@@ -94,14 +94,29 @@ export async function loadCatalogueBase(tx: Tx, file: CatalogueFile) {
   await bumpStamp(tx, file.header.version)
 }
 
-/** Start-up: load this build's catalogue once across instances, then warm this instance's copy. */
-export async function ensureCatalogue() {
+/**
+ * The demo organisation's regional list (demo data, invented): entries the 2015 noxious lists lack, as a real
+ * coordinator would add them (USDA's README: state invasive lists are longer than the 2015 composite).
+ */
+export const DEMO_REGIONAL_LIST: OverrideRow[] = [
+  { scientificName: 'Berberis thunbergii', region: 'US-OH', field: 'status', value: 'invasive', source: 'coordinator (demo regional list)' },
+]
+
+/** Start-up: load this build's catalogue once across instances (and the demo list in demo mode), then warm this instance's copy. */
+export async function ensureCatalogue(demo = false) {
   const file = await readCatalogueFile()
   try {
     await onceAcrossInstances(`catalogue/${file.header.version}`, (tx) => loadCatalogueBase(tx, file))
   } catch (e) {
     // drizzle's "Failed query" hides the database's own words in `cause`
     throw new Error(`loading catalogue ${file.header.version} failed: ${(e as Error).message.slice(0, 200)}: ${((e as Error).cause as Error | undefined)?.message ?? ''}`)
+  }
+  if (demo) {
+    await onceAcrossInstances('catalogue/demo-list/1', async (tx) => {
+      await tx.insert(catalogueOverrides).ignore().values(DEMO_REGIONAL_LIST)
+      await materialize(tx, DEMO_REGIONAL_LIST, (await useCatalogue()).byKey)
+      await bumpStamp(tx)
+    })
   }
   await useCatalogue()
 }
@@ -274,7 +289,8 @@ export async function listSpecies(q: SpeciesListQuery) {
   const dir = q.dir === 'desc' ? desc : asc
   const sort = q.sort ?? (term ? 'relevance' : 'name')
   const order: SQL[] = {
-    relevance: [desc(sql`(${s.scientificName} like ${`${term ?? ''}%`} or ${s.commonName} like ${`${term ?? ''}%`})`), desc(s.hasFacts), asc(s.scientificName)],
+    // plantable species (with USDA facts) first, then names starting with the term
+    relevance: [desc(s.hasFacts), desc(sql`(${s.scientificName} like ${`${term ?? ''}%`} or ${s.commonName} like ${`${term ?? ''}%`} or ${s.commonName} like ${`% ${term ?? ''}%`})`), asc(s.scientificName)],
     name: [dir(s.scientificName)],
     common: [dir(sql`${s.commonName} is null`), dir(s.commonName), asc(s.scientificName)],
     layer: [dir(s.layer), asc(s.scientificName)],

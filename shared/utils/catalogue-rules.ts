@@ -161,18 +161,15 @@ export function nameKey(name: string): string {
 // nothing; USDA's own definitions separate tree from shrub at about 4 to 5 m (13 to 16 ft), single stem.
 
 export const TREE_MIN_HEIGHT_FT = 13
-/** A forb-like subshrub this tall or more is a shrub in the yard; lower ones read as ground layer. */
-export const SUBSHRUB_SHRUB_MIN_HEIGHT_FT = 3
 
 export function layerFromHabit(habit: string | null | undefined, heightFt: number | null): Layer | null {
   const h = new Set((habit ?? '').split(',').map((s) => s.trim()).filter(Boolean))
   if (h.has('Tree') && h.has('Shrub')) return heightFt !== null && heightFt >= TREE_MIN_HEIGHT_FT ? 'tree' : 'shrub'
   if (h.has('Tree')) return 'tree'
   if (h.has('Shrub')) return 'shrub'
-  if (h.has('Subshrub')) {
-    if (h.has('Forb/herb') || h.has('Graminoid')) return heightFt !== null && heightFt >= SUBSHRUB_SHRUB_MIN_HEIGHT_FT ? 'shrub' : 'ground'
-    return 'shrub'
-  }
+  // a herb that USDA also calls a subshrub (woody only at the base: wild bergamot, many asters) grows and is
+  // planted as a perennial, so the ground layer; a plain subshrub is a small shrub
+  if (h.has('Subshrub')) return h.has('Forb/herb') || h.has('Graminoid') ? 'ground' : 'shrub'
   if (h.has('Forb/herb') || h.has('Graminoid') || h.has('Vine')) return 'ground'
   return null
 }

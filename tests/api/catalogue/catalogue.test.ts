@@ -55,6 +55,15 @@ describe('species page', () => {
     expect((await detail('Poa pratensis', 'US-OH')).status).toBe('nativeAndIntroduced')
     expect((await detail('Lolium perenne', 'US-OH')).status).toBe('introduced')
   })
+  it('keeps the coordinator\'s regional list apart from USDA: the demo list marks barberry invasive in US-OH', async () => {
+    const d = await detail('Berberis thunbergii', 'US-OH')
+    // demo data (server/services/catalogue.ts DEMO_REGIONAL_LIST); USDA alone says introduced in Ohio
+    expect(d.status).toBe('invasive')
+    expect(d.regions.find((r: any) => r.region === 'US-OH').source).toMatch(/coordinator/)
+    expect(d.overrides).toEqual(expect.arrayContaining([expect.objectContaining({ region: 'US-OH', field: 'status', value: 'invasive' })]))
+    // noxious_composite_2015.csv.gz: CT and MA list it
+    expect((await detail('Berberis thunbergii', 'US-CT')).regions.find((r: any) => r.region === 'US-CT')).toMatchObject({ status: 'invasive', source: 'USDA PLANTS' })
+  })
   it('404s an unknown name', async () => {
     expect((await anon.get('/api/species/Nonexistia%20imaginaria')).status).toBe(404)
   })

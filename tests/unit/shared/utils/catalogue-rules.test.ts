@@ -117,8 +117,10 @@ describe('layer from growth habit (USDA PLANTS growth habit definitions: trees u
     expect(layerFromHabit('Shrub, Tree', 13)).toBe('tree')
     expect(layerFromHabit('Shrub, Tree', 8)).toBe('shrub')
     expect(layerFromHabit('Shrub, Tree', null)).toBe('shrub')
+    // plants.csv.gz: Monarda fistulosa is "Forb/herb, Subshrub", 4.9 ft: planted as a perennial
     expect(layerFromHabit('Forb/herb, Subshrub', 1)).toBe('ground')
-    expect(layerFromHabit('Forb/herb, Subshrub', 4)).toBe('shrub')
+    expect(layerFromHabit('Forb/herb, Subshrub', 4.9)).toBe('ground')
+    expect(layerFromHabit('Shrub, Subshrub', 2)).toBe('shrub')
   })
 })
 
