@@ -129,6 +129,17 @@ describe('the yard editor', () => {
     await page.keyboard.press('Alt+ArrowRight')
     await page.keyboard.press('Alt+ArrowRight')
     await expect.poll(async () => (await savedDocument(context, id)).plantings[0].x, { timeout: 10_000 }).toBeCloseTo(5 + 2 * 0.1524, 6)
+    // and with the pointer: the plant sits at the centre of the fitted lot; drag it right
+    await page.locator('[data-tool=select]').click()
+    await page.keyboard.press('0')
+    const b = await canvasBox(page)
+    await page.mouse.move(b.x + b.width / 2, b.y + b.height / 2)
+    await page.mouse.down()
+    await page.mouse.move(b.x + b.width / 2 + 60, b.y + b.height / 2, { steps: 6 })
+    await page.mouse.move(b.x + b.width / 2 + 120, b.y + b.height / 2, { steps: 6 })
+    await page.mouse.up()
+    await expect.poll(async () => (await savedDocument(context, id)).plantings[0].x, { timeout: 10_000 }).toBeGreaterThan(5.5)
+    expect((await savedDocument(context, id)).plantings[0].y).toBeCloseTo(5, 1)
     await context.close()
   })
 
