@@ -68,8 +68,9 @@ export async function recommendationOn(owner: Client) {
 
 /** Unused far-future dates, so a test drive never overlaps the running demo drive or another test's. */
 export function farFutureDates() {
-  const year = 3000 + Math.floor(Math.random() * 6000)
-  return { startsOn: `${year}-03-01`, endsOn: `${year}-09-30` }
+  // one day in some year 3000–9999: two test drives collide with odds of about 1 in 2.5 million
+  const day = new Date(Date.UTC(3000 + Math.floor(Math.random() * 7000), 0, 1 + Math.floor(Math.random() * 365))).toISOString().slice(0, 10)
+  return { startsOn: day, endsOn: day }
 }
 
 // a 1 × 1 PNG (the signature, IHDR, IDAT and IEND chunks)
