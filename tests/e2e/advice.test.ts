@@ -1,11 +1,13 @@
 // Advice in the browser: the advisor previews a recommendation's effect on the three shares and records it;
 // the owner accepts it from the plan's Advice panel as an undoable edit, which the editor saves.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest'
-import { launch, newContext, outsideRequests, signIn, type Browser } from '../support/browser'
+import { launch, newContext, outsideRequests, signIn, type Browser, type Page } from '../support/browser'
 import { newHomeowner } from '../support/http'
 import { visitTo } from '../api/advice/fixtures'
 
 let browser: Browser
+// Vue marks the app's root once it has hydrated; before that a change to a form control is lost
+const hydrated = (page: Page) => page.waitForFunction(() => !!(document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__)
 beforeAll(async () => { browser = await launch() })
 afterAll(async () => { await browser?.close() })
 
@@ -18,6 +20,7 @@ describe('advice in the browser', () => {
     const page = await advisorCtx.newPage()
     await signIn(page, 'advisor@example.org')
     await page.goto(`/visits/${visitId}`)
+    await hydrated(page)
     await page.locator('#rec-kind').selectOption('add')
     await page.locator('#rec-bed').selectOption('bed')
     await page.getByLabel('Species (scientific name)').fill('Asclepias tuberosa')
@@ -33,6 +36,7 @@ describe('advice in the browser', () => {
     const op = await context.newPage()
     await signIn(op, owner.email, 'a-long-test-password')
     await op.goto(`/yards/${yardId}`)
+    await hydrated(op)
     await op.locator('[data-test=advice-toggle]').click()
     const rec = op.locator('[data-test^=recommendation-]').first()
     await expect.poll(() => rec.textContent()).toContain('Add 6 × Asclepias tuberosa')
@@ -54,6 +58,7 @@ describe('advice in the browser', () => {
     const page = await context.newPage()
     await signIn(page, owner.email, 'a-long-test-password')
     await page.goto(`/yards/${id}/share`)
+    await hydrated(page)
     await page.getByLabel('E-mail address').fill(owner.email)
     await page.getByRole('button', { name: 'Send invitation' }).click()
     await expect.poll(() => page.locator('.field-error').first().textContent()).toMatch(/your own address/)

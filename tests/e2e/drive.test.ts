@@ -1,9 +1,11 @@
 // The coordinator's dashboard in the browser: totals, three charts, the table and a bulk mail's progress bar.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest'
-import { launch, newContext, outsideRequests, signIn, type Browser } from '../support/browser'
+import { launch, newContext, outsideRequests, signIn, type Browser, type Page } from '../support/browser'
 import { demo, newHomeowner } from '../support/http'
 
 let browser: Browser
+// Vue marks the app's root once it has hydrated; before that a change to a form control is lost
+const hydrated = (page: Page) => page.waitForFunction(() => !!(document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__)
 beforeAll(async () => { browser = await launch() })
 afterAll(async () => { await browser?.close() })
 
@@ -15,6 +17,7 @@ describe('pledge drive dashboard in the browser', () => {
     const home = await homeCtx.newPage()
     await signIn(home, owner.email, 'a-long-test-password')
     await home.goto(`/yards/${id}/pledge`)
+    await hydrated(home)
     await home.getByRole('button', { name: 'Pledge the yard' }).click()
     await expect.poll(() => home.locator('.field-error').first().textContent()).toMatch(/neighbourhood/)
     await home.getByLabel('Neighbourhood or postal code').fill('Browserby')
@@ -27,6 +30,7 @@ describe('pledge drive dashboard in the browser', () => {
     const page = await context.newPage()
     await signIn(page, 'coordinator@example.org')
     await page.goto('/drive')
+    await hydrated(page)
     await expect.poll(() => page.locator('[data-test=total-pledged]').textContent()).toContain(`/ ${summary.target}`)
     await expect.poll(() => page.locator('canvas').count()).toBe(3)
     await expect.poll(() => page.locator('[data-test=pledge-table] tbody tr').count()).toBeGreaterThan(0)
