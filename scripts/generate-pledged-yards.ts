@@ -102,5 +102,7 @@ for (let from = 0; from < COUNT; from += CHUNK) {
     conn.release()
   }
 }
+// the dashboard's cached summary of the drive is out of date now
+await pool.query('INSERT INTO drive_summaries (drive_id, version) VALUES (?, 1) ON DUPLICATE KEY UPDATE version = version + 1', [drive.id])
 console.log(`generated ${COUNT} pledged yards in drive ${drive.id} in ${((Date.now() - started) / 1000).toFixed(1)} s`)
 await pool.end()

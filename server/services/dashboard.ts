@@ -2,13 +2,15 @@
 // columns (never a loop over yards). Only pledges whose households consented count, and no row names a yard,
 // its address or its owner.
 import { and, eq, gte, lte, asc, desc, like, sql, type SQL } from 'drizzle-orm'
-import { pledges, shareSnapshots, type DriveRow } from '../database/schema'
+import { drives, pledges, shareSnapshots, driveSummaries, type DriveRow } from '../database/schema'
 import type { PledgesQuery } from '#shared/schemas/drives'
 import { driveView, shareColumn, today } from './drives'
 
 export const HISTOGRAM_BINS = 10
 // a neighbourhood with fewer consenting yards than this is folded into "Other", so no household stands out
 export const MIN_NEIGHBOURHOOD = 3
+// a cached summary older than this is computed again even when no change was recorded (a pledged yard deleted)
+export const SUMMARY_MAX_AGE_MS = 60_000
 
 const consenting = (drive: DriveRow) => and(eq(pledges.driveId, drive.id), eq(pledges.consent, true))
 const num = (x: unknown) => Number(x ?? 0)
@@ -52,6 +54,32 @@ export async function driveSummary(drive: DriveRow) {
     lawnConverted: Math.round(num(totals?.lawnConverted) * 10) / 10,
     histogram,
   }
+}
+
+export type DriveSummary = Awaited<ReturnType<typeof driveSummary>>
+
+/**
+ * The summary for `current` or a drive id, from the shared cache when nothing changed since it was computed:
+ * the drive and its cache row come in one query, so an unchanged drive costs that query only.
+ */
+export async function cachedDriveSummary(id: number | 'current'): Promise<DriveSummary> {
+  const db = useDb()
+  const d = today()
+  const [row] = await db.select({ drive: drives, cache: driveSummaries }).from(drives)
+    .leftJoin(driveSummaries, eq(driveSummaries.driveId, drives.id))
+    .where(id === 'current' ? and(lte(drives.startsOn, d), gte(drives.endsOn, d)) : eq(drives.id, id))
+    .orderBy(desc(drives.startsOn), desc(drives.id)).limit(1)
+  if (!row) throw createError({ status: 404, message: id === 'current' ? 'No pledge drive is running' : 'No such drive' })
+  const cache = row.cache
+  if (cache?.body && cache.bodyVersion === cache.version && cache.computedAt && Date.now() - cache.computedAt.getTime() < SUMMARY_MAX_AGE_MS) {
+    return cache.body as DriveSummary
+  }
+  // the version read before computing: a change made meanwhile leaves the stored body out of date, as it should
+  const version = cache?.version ?? 1
+  if (!cache) await db.insert(driveSummaries).ignore().values({ driveId: row.drive.id, version })
+  const body = await driveSummary(row.drive)
+  await db.update(driveSummaries).set({ body, bodyVersion: version, computedAt: new Date() }).where(eq(driveSummaries.driveId, row.drive.id))
+  return body
 }
 
 function days(from: string, to: string): string[] {

@@ -1,7 +1,7 @@
 // Pledge drives: the running drive, pledging a yard, keeping each pledged yard's shares current (and one
 // snapshot per yard per day) after every save, verification by an advisor, the certificate and bulk mail.
 import { and, eq, gte, lte, desc, inArray, sql } from 'drizzle-orm'
-import { drives, pledges, shareSnapshots, driveMailings, driveMailDeliveries, yards, users, organisation, type DriveRow, type PledgeRow } from '../database/schema'
+import { drives, pledges, shareSnapshots, driveMailings, driveMailDeliveries, driveSummaries, yards, users, organisation, type DriveRow, type PledgeRow } from '../database/schema'
 import type { YardDocument } from '#shared/schemas/yard-document'
 import type { ShareSet } from '#shared/schemas/advice'
 import type { AccountRow, YardRow } from '../utils/auth'
@@ -13,6 +13,11 @@ export type ShareKind = 'count' | 'area' | 'volume'
 export const DRIVE_MAIL_JOB = 'drive-mail'
 
 export const today = () => new Date().toISOString().slice(0, 10)
+
+/** Marks a drive's cached dashboard summary out of date; every change to its pledges or settings calls this. */
+export async function bumpDriveVersion(driveId: number) {
+  await useDb().insert(driveSummaries).values({ driveId, version: 1 }).onDuplicateKeyUpdate({ set: { version: sql`${driveSummaries.version} + 1` } })
+}
 
 /** The shares of a document as the score engine gives them, plus the visible lawn area (m²). */
 export async function yardShares(doc: YardDocument, region: string): Promise<{ shares: ShareSet; lawnArea: number }> {
@@ -83,6 +88,7 @@ export async function updateDrive(id: number, input: DriveInput) {
   await db.update(pledges).set({
     status: sql`CASE WHEN ${pledges.status} = 'verified' THEN 'verified' WHEN ${col} >= ${input.goal} THEN 'reached' ELSE 'pledged' END`,
   }).where(eq(pledges.driveId, id))
+  await bumpDriveVersion(id)
   return driveView(await requireDrive(id))
 }
 
@@ -127,6 +133,7 @@ export async function pledgeYard(owner: AccountRow, yard: YardRow, input: { neig
     }).onDuplicateKeyUpdate({ set: { neighbourhood: input.neighbourhood, consent: input.consent } })
   }
   await upsertSnapshot(yard.id, cols)
+  await bumpDriveVersion(drive.id)
   const [p] = await db.select().from(pledges).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id))).limit(1)
   return { created: !existing, drive: driveView(drive), pledge: pledgeView(p!, drive) }
 }
@@ -135,6 +142,7 @@ export async function withdrawPledge(yardId: number) {
   const drive = await requireDrive('current')
   const [r] = await useDb().delete(pledges).where(and(eq(pledges.yardId, yardId), eq(pledges.driveId, drive.id)))
   if (r.affectedRows === 0) throw createError({ status: 404, message: 'This yard is not pledged to the running drive' })
+  await bumpDriveVersion(drive.id)
 }
 
 async function upsertSnapshot(yardId: number, cols: ReturnType<typeof shareColumns>, day = today()) {
@@ -155,6 +163,7 @@ export async function recordPledgedShares(yard: YardRow) {
   for (const { pledge, drive } of rows) {
     const status = statusFor(drive, pledge.status, cols)
     await db.update(pledges).set({ ...cols, status, reachedAt: status === 'reached' && !pledge.reachedAt ? new Date() : pledge.reachedAt }).where(eq(pledges.id, pledge.id))
+    await bumpDriveVersion(drive.id)
   }
   await upsertSnapshot(yard.id, cols)
 }
@@ -166,7 +175,10 @@ export async function verifyPledge(advisor: AccountRow, yardId: number) {
   const [p] = await db.select().from(pledges).where(and(eq(pledges.yardId, yardId), eq(pledges.driveId, drive.id))).limit(1)
   if (!p) throw createError({ status: 404, message: 'This yard is not pledged to the running drive' })
   if (p.status === 'pledged') throw createError({ status: 409, message: `The yard has not reached the goal by ${drive.certifies} yet, so it cannot be verified` })
-  if (p.status !== 'verified') await db.update(pledges).set({ status: 'verified', verifiedAt: new Date(), verifiedBy: advisor.id }).where(eq(pledges.id, p.id))
+  if (p.status !== 'verified') {
+    await db.update(pledges).set({ status: 'verified', verifiedAt: new Date(), verifiedBy: advisor.id }).where(eq(pledges.id, p.id))
+    await bumpDriveVersion(drive.id)
+  }
   const [fresh] = await db.select().from(pledges).where(eq(pledges.id, p.id))
   return pledgeView(fresh!, drive)
 }

@@ -1,4 +1,4 @@
-import { mysqlTable, varchar, mysqlEnum, text, int, tinyint, double, date, decimal, boolean, timestamp, index, uniqueIndex } from 'drizzle-orm/mysql-core'
+import { mysqlTable, varchar, mysqlEnum, text, int, tinyint, double, date, decimal, boolean, timestamp, json, index, uniqueIndex } from 'drizzle-orm/mysql-core'
 import { sql } from 'drizzle-orm'
 import { id, ref, timestamps } from './columns'
 import { users } from './accounts'
@@ -91,6 +91,19 @@ export const shareSnapshots = mysqlTable('share_snapshots', {
   // progress over time reads each yard's days and shares from the index alone
   index('share_snapshots_yard_day_shares_idx').on(t.yardId, t.day, t.countShare, t.areaShare, t.volumeShare),
 ])
+
+/**
+ * The last computed dashboard summary of a drive, shared by every instance. Every change the app makes to a
+ * drive's pledges bumps `version`; a body computed for an older version (or over a minute ago, which covers a
+ * pledged yard deleted with its pledge) is computed again.
+ */
+export const driveSummaries = mysqlTable('drive_summaries', {
+  driveId: ref('drive_id').primaryKey().references(() => drives.id, { onDelete: 'cascade' }),
+  version: int('version', { unsigned: true }).notNull().default(1),
+  body: json('body').$type<Record<string, unknown>>(),
+  bodyVersion: int('body_version', { unsigned: true }),
+  computedAt: timestamp('computed_at', { fsp: 3 }),
+})
 
 export const MAILING_KINDS = ['reminder', 'thanks'] as const
 export const MAILING_AUDIENCES = ['all', 'pledged', 'reached', 'verified'] as const

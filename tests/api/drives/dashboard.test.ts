@@ -33,6 +33,10 @@ describe('pledge drive dashboard', () => {
     for (const depth of [0.5, 2.5, 4.5, 6.5, 7.5, 9.5]) await pledgedYard(owner.client, depth, true, 'Testwood')
     await pledgedYard(owner.client, 8.5, false, 'Testwood')
     const coordinator = await demo('coordinator')
+    // a pledge shows at once (the cached summary is out of date the moment a pledge changes)
+    const seen = (await coordinator.get('/api/drives/current/summary')).body.pledged
+    await pledgedYard(owner.client, 3.5, true, 'Testwood')
+    expect((await coordinator.get('/api/drives/current/summary')).body.pledged).toBeGreaterThan(seen)
 
     // other test files pledge too: recompute until the summary is the same before and after reading
     let attempt = 0
