@@ -225,7 +225,7 @@ export const yardDocument = z.custom<z.input<typeof yardDocumentShape>>(() => tr
     const element = typeof list === 'string' && typeof index === 'number' ? (value as Record<string, unknown[]>)[list]?.[index] : undefined
     const id = element && typeof (element as { id?: unknown }).id === 'string' ? (element as { id: string }).id : null
     const noun = typeof list === 'string' && typeof index === 'number' ? NOUNS[list] : undefined
-    ctx.addIssue({ code: 'custom', path: issue.path as PropertyKey[], input: element ?? value, message: noun ? `${noun}${id ? ` "${id}"` : ` ${index + 1}`}: ${issue.message}` : issue.message })
+    ctx.addIssue({ code: 'custom', path: issue.path as PropertyKey[], input: element ?? value, message: noun ? `${noun}${id ? ` "${id}"` : ` ${Number(index) + 1}`}: ${issue.message}` : issue.message })
   }
   return z.NEVER
 })

@@ -4,12 +4,9 @@
 import polygonClipping from 'polygon-clipping'
 import { ringArea, pointInRing, segmentsIntersect, type Point, type Ring } from './polygon'
 
-export type { Point, Ring }
 export type Polygon = Ring[]
 export type MultiPolygon = Polygon[]
 export interface Box { minX: number; minY: number; maxX: number; maxY: number }
-
-export { ringArea }
 
 /** Sides of a circle drawn as a polygon: 96 keeps the inscribed polygon's area error at 0.071 % (< 0.1 %). */
 export const CIRCLE_SEGMENTS = 96
@@ -370,7 +367,8 @@ export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[], prep
     else hard.push(...kept.map((c) => c.ring))
   }
   if (hard.length) {
-    const covered = clip.intersection(inLot.geom, clip.union(...hard.map((r) => [r] as Polygon)))
+    const [first, ...rest] = hard.map((r) => [r] as Polygon)
+    const covered = clip.intersection(inLot.geom, clip.union(first!, ...rest))
     subtract += multiPolygonArea(covered)
   }
   return { area: Math.max(0, inLot.area - subtract), inLot: inLot.area }

@@ -3,9 +3,10 @@ import polygonClipping from 'polygon-clipping'
 import fc from 'fast-check'
 import turfArea from '@turf/area'
 import {
-  CIRCLE_SEGMENTS, circleRing, convexUnionArea, circleAreaInLot, circleInside, cutterOf, multiPolygonArea, ringArea, ringInLot, ringInside,
-  ringsApart, roomiestPoint, shapeOf, visibleArea, visibleGeometry, boxOf, isConvex, type Ring,
+  CIRCLE_SEGMENTS, circleRing, convexUnionArea, circleAreaInLot, circleInside, cutterOf, multiPolygonArea, ringInLot, ringInside,
+  ringsApart, roomiestPoint, shapeOf, visibleArea, visibleGeometry, boxOf, isConvex,
 } from '#shared/utils/geometry'
+import { ringArea, type Ring } from '#shared/utils/polygon'
 import { METRES_PER_FOOT, SQUARE_METRES_PER_SQUARE_FOOT, fromDisplayLength } from '#shared/utils/units'
 
 const rect = (x: number, y: number, w: number, h: number): Ring => [[x, y], [x + w, y], [x + w, y + h], [x, y + h]]
