@@ -62,8 +62,10 @@ describe('the yard editor', () => {
     const list = await (await context.request.get('/api/species?region=US-OH&q=a&page=1')).json() as { items: Array<{ scientificName: string; status: string; layer: string }> }
     const more = await (await context.request.get('/api/species?region=US-OH&q=e&page=1')).json() as typeof list
     const all = [...list.items, ...more.items]
-    const natives = [...new Set(all.filter((s) => s.status === 'native' && s.layer !== 'tree').map((s) => s.scientificName))].slice(0, 3)
-    const introduced = all.find((s) => s.status === 'introduced')?.scientificName
+    // plain binomials, so that typing the name finds exactly that species
+    const binomial = (s: { scientificName: string }) => /^[A-Z][a-z-]+ [a-z-]+$/.test(s.scientificName)
+    const natives = [...new Set(all.filter((s) => s.status === 'native' && s.layer !== 'tree' && binomial(s)).map((s) => s.scientificName))].slice(0, 3)
+    const introduced = all.find((s) => s.status === 'introduced' && binomial(s))?.scientificName
     expect(natives.length).toBe(3)
     expect(introduced).toBeTruthy()
 
