@@ -89,3 +89,11 @@ describe('GET /api/yards/[id]/score', () => {
   })
 })
 
+
+describe('POST /api/score body', () => {
+  it('answers 400 to a body that is not JSON', async () => {
+    const r = await (await demo('homeowner')).request('POST', '/api/score', '{"plantings": [', { 'content-type': 'application/json' })
+    expect(r.status).toBe(400)
+    expect(r.body.data.fields._).toMatch(/not valid JSON/)
+  })
+})
