@@ -7,14 +7,34 @@ import { yardAccessLevel, type YardAccess } from '../services/yard-access'
 export type AccountRow = typeof users.$inferSelect
 export type YardRow = typeof yards.$inferSelect
 
+// Unsealing the session cookie costs a few milliseconds of key derivation on every request; the editor scores
+// on every change, so each instance remembers, briefly, which user an exact sealed cookie value belongs to.
+// The same sealed string always unseals to the same session, and entries live far shorter than the session.
+const SESSION_MEMO_MS = 30_000
+const SESSION_MEMO_MAX = 10_000
+const sessionMemo = new Map<string, { userId: number; until: number }>()
+
+async function sessionUserId(event: H3Event): Promise<number | undefined> {
+  const raw = getCookie(event, useRuntimeConfig().session.name || 'nuxt-session')
+  const now = Date.now()
+  const hit = raw ? sessionMemo.get(raw) : undefined
+  if (hit && hit.until > now) return hit.userId
+  const session = await getUserSession(event)
+  const id = session.user?.id
+  if (raw && id) {
+    if (sessionMemo.size >= SESSION_MEMO_MAX) sessionMemo.delete(sessionMemo.keys().next().value!)
+    sessionMemo.set(raw, { userId: id, until: now + SESSION_MEMO_MS })
+  }
+  return id
+}
+
 /**
  * The signed-in user, re-read from the database so that a role change or a deleted account takes effect at once.
  * 401 when nobody is signed in (or the account is gone).
  */
 export async function requireUser(event: H3Event): Promise<AccountRow> {
   if (event.context.account) return event.context.account as AccountRow
-  const session = await getUserSession(event)
-  const id = session.user?.id
+  const id = await sessionUserId(event)
   if (!id) throw createError({ status: 401, message: 'Please sign in' })
   const [row] = await useDb().select().from(users).where(eq(users.id, id)).limit(1)
   if (!row) {
