@@ -451,34 +451,36 @@ function passes(s: CachedSpecies, status: RegionStatus | undefined, c: FitCondit
   return true
 }
 
-/** Score 0–100 and the reasons in plain words. */
-function scoreFit(s: CachedSpecies, c: FitConditions, yard: YardContext | null): { score: number; reasons: string[] } {
+/**
+ * Score 0–100; the reasons in plain words are written into `reasons` when given (`reasons?.push(…)` skips
+ * building the words when not, so ranking thousands of natives only words the ones shown).
+ */
+function scoreFit(s: CachedSpecies, c: FitConditions, yard: YardContext | null, reasons?: string[]): number {
   const d = s.data
-  const reasons: string[] = []
   let score = 0
   const site: string[] = []
   if (c.sun) { score += 15; site.push(SUN_WORDS[c.sun]!) }
   if (c.soil) { score += 10; site.push(`${SOIL_WORDS[c.soil]} soil`) }
   if (c.moisture) { score += 10; site.push(`${MOISTURE_WORDS[c.moisture]} ground`) }
-  if (site.length) reasons.push(`Takes ${site.join(', ')}`)
-  if (c.zone && d.minZone) { score += 10; reasons.push(`Hardy in zone ${c.zone} (to zone ${d.minZone})`) }
+  if (site.length) reasons?.push(`Takes ${site.join(', ')}`)
+  if (c.zone && d.minZone) { score += 10; reasons?.push(`Hardy in zone ${c.zone} (to zone ${d.minZone})`) }
   const showy = d.flowerConspicuous !== false
   if (yard) {
     const gaps = showy ? d.bloomMonths.filter((m) => BLOOM_SEASON.includes(m) && !yard.bloomMonths.has(m)) : []
     if (gaps.length) {
       score += Math.min(20, gaps.length * 10)
-      reasons.push(`Blooms in ${gaps.map((m) => MONTH_NAMES[m - 1]).join(' and ')}, when nothing native in your yard does`)
+      reasons?.push(`Blooms in ${gaps.map((m) => MONTH_NAMES[m - 1]).join(' and ')}, when nothing native in your yard does`)
     }
-    if (!yard.layers.has(d.layer)) { score += 15; reasons.push(`Adds the ${d.layer === 'ground' ? 'ground' : d.layer} layer your yard lacks`) }
+    if (!yard.layers.has(d.layer)) { score += 15; reasons?.push(`Adds the ${d.layer === 'ground' ? 'ground' : d.layer} layer your yard lacks`) }
   } else if (showy && d.bloomMonths.length) {
     score += 5
-    reasons.push(`Blooms in ${d.bloomMonths.map((m) => MONTH_NAMES[m - 1]).join(', ')}`)
+    reasons?.push(`Blooms in ${d.bloomMonths.map((m) => MONTH_NAMES[m - 1]).join(', ')}`)
   }
-  if (d.wildlife.includes('seed or fruit for birds')) { score += 8; reasons.push('Seed or fruit for birds') }
-  if (d.wildlife.includes('flowers for pollinators')) { score += 7; reasons.push('Flowers for bees and butterflies') }
-  if (d.commercialAvailability === 'Routinely Available') { score += 10; reasons.push('Available from nurseries') }
-  if (d.estimated.includes('spread')) reasons.push('Mature spread is an estimate')
-  return { score: Math.min(100, score), reasons }
+  if (d.wildlife.includes('seed or fruit for birds')) { score += 8; reasons?.push('Seed or fruit for birds') }
+  if (d.wildlife.includes('flowers for pollinators')) { score += 7; reasons?.push('Flowers for bees and butterflies') }
+  if (d.commercialAvailability === 'Routinely Available') { score += 10; reasons?.push('Available from nurseries') }
+  if (d.estimated.includes('spread')) reasons?.push('Mature spread is an estimate')
+  return Math.min(100, score)
 }
 
 function fitItem(s: CachedSpecies, status: RegionStatus, score: number, reasons: string[]): FitItem {
@@ -495,15 +497,20 @@ export async function findFits(c: FitConditions, yard: YardContext | null, limit
   const cat = await useCatalogue()
   const statuses = await regionStatuses(cat, c.region)
   const zoneIdx = zoneIndex(c.zone)
-  const scored: { s: CachedSpecies; score: number; reasons: string[] }[] = []
+  const scored: { s: CachedSpecies; score: number }[] = []
   for (const [id, status] of statuses) {
     if (status !== 'native') continue
     const s = cat.byId.get(id)
     if (!s || !passes(s, status, c, zoneIdx)) continue
-    scored.push({ s, ...scoreFit(s, c, yard) })
+    scored.push({ s, score: scoreFit(s, c, yard) })
   }
-  scored.sort((a, b) => b.score - a.score || a.s.data.scientificName.localeCompare(b.s.data.scientificName))
-  return scored.slice(0, limit).map(({ s, score, reasons }) => fitItem(s, 'native', score, reasons))
+  // ties broken by a code-unit comparison of names: stable, and far cheaper than localeCompare over thousands
+  scored.sort((a, b) => b.score - a.score || (a.s.data.scientificName < b.s.data.scientificName ? -1 : a.s.data.scientificName > b.s.data.scientificName ? 1 : 0))
+  return scored.slice(0, limit).map(({ s, score }) => {
+    const reasons: string[] = []
+    scoreFit(s, c, yard, reasons)
+    return fitItem(s, 'native', score, reasons)
+  })
 }
 
 /** What a yard's native plantings already give: bloom months and layers. */
@@ -530,22 +537,25 @@ export async function findSwaps(name: string, c: Omit<FitConditions, 'layer' | '
   const zoneIdx = zoneIndex(c.zone)
   const h0 = target.data.height
   const cond: FitConditions = { ...c, layer: target.data.layer }
-  const scored: { s: CachedSpecies; score: number; reasons: string[] }[] = []
+  const scored: { s: CachedSpecies; score: number }[] = []
   for (const [id, status] of statuses) {
     if (status !== 'native') continue
     const s = cat.byId.get(id)
     if (!s || !passes(s, status, cond, zoneIdx)) continue
     const ratio = s.data.height / h0
     if (ratio < 0.5 || ratio > 2) continue
-    const fit = scoreFit(s, cond, null)
     const closeness = Math.round(20 * (1 - Math.abs(Math.log2(ratio))))
-    scored.push({
-      s, score: Math.min(100, fit.score + closeness),
-      reasons: [`Same layer (${s.data.layer}) and similar size: ${s.data.height} m tall, against ${h0} m`, ...fit.reasons],
-    })
+    scored.push({ s, score: Math.min(100, scoreFit(s, cond, null) + closeness) })
   }
-  scored.sort((a, b) => b.score - a.score || a.s.data.scientificName.localeCompare(b.s.data.scientificName))
-  return { species, items: scored.slice(0, limit).map(({ s, score, reasons }) => fitItem(s, 'native', score, reasons)) }
+  scored.sort((a, b) => b.score - a.score || (a.s.data.scientificName < b.s.data.scientificName ? -1 : a.s.data.scientificName > b.s.data.scientificName ? 1 : 0))
+  return {
+    species,
+    items: scored.slice(0, limit).map(({ s, score }) => {
+      const reasons = [`Same layer (${s.data.layer}) and similar size: ${s.data.height} m tall, against ${h0} m`]
+      scoreFit(s, cond, null, reasons)
+      return fitItem(s, 'native', score, reasons)
+    }),
+  }
 }
 
 // ---------------------------------------------------------------------------------------------------------
