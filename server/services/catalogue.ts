@@ -271,6 +271,14 @@ export async function getSpeciesDetails(names: string[], region: string): Promis
  * Search-as-you-type over this instance's in-memory copy: a substring scan of ~20,000 names takes about a
  * millisecond, where `like '%term%'` in SQL scans the table twice (rows and count). Same ranking and shape.
  */
+// lower-cased names per cached species, made once per catalogue copy rather than on every keystroke
+const lowered = new WeakMap<CachedSpecies, [string, string]>()
+function lowerNames(s: CachedSpecies): [string, string] {
+  let v = lowered.get(s)
+  if (!v) lowered.set(s, v = [s.data.scientificName.toLowerCase(), (s.data.commonName ?? '').toLowerCase()])
+  return v
+}
+
 async function searchSpecies(q: SpeciesListQuery & { q: string }) {
   const cat = await useCatalogue()
   const statuses = q.region ? await regionStatuses(cat, q.region) : new Map<number, RegionStatus>()
@@ -280,8 +288,7 @@ async function searchSpecies(q: SpeciesListQuery & { q: string }) {
   const hits: Array<{ s: CachedSpecies; status: RegionStatus; rank: number }> = []
   for (const s of cat.list) {
     const d = s.data
-    const sci = d.scientificName.toLowerCase()
-    const common = (d.commonName ?? '').toLowerCase()
+    const [sci, common] = lowerNames(s)
     if (!sci.includes(term) && !common.includes(term)) continue
     if (q.layer && d.layer !== q.layer) continue
     if (q.sun && !d.sun.includes(q.sun)) continue
