@@ -35,6 +35,7 @@
  */
 import { plantsNeeded as plantsForArea } from './plant-count'
 import { ringArea, type Point } from './polygon'
+import type { SpeciesDetails } from '../types/species'
 
 export const POT_SIZE_CM = 10
 export const DEFAULT_SEEDLINGS_PER_POT = 10
@@ -95,23 +96,10 @@ export const WARMEST_ZONE_FOR_OUTDOOR_COLD = 8
 // ---------------------------------------------------------------------------------------------------------------
 // Inputs and outputs
 
-/** The species facts the seed plan reads (a subset of SpeciesDetails in shared/types/species.ts). */
-export interface SeedFacts {
-  scientificName: string
-  commonName: string | null
-  layer: 'tree' | 'shrub' | 'ground'
-  spacing: number | null
-  propagatedBySeed: boolean | null
-  coldStratification: boolean | null
-  coldMoistDays: number | null
-  seedNeedsLight: boolean | null
-  scarify: boolean
-  hotWaterSoak: boolean
-  seedsPerPound: number | null
-  seedlingsPerPot: number | null
-  toxic?: boolean
-  sources?: Record<string, string>
-}
+/** The species facts the seed plan reads: a subset of the catalogue's SpeciesDetails. */
+export type SeedFacts = Pick<SpeciesDetails, 'scientificName' | 'commonName' | 'layer' | 'spacing' | 'propagatedBySeed'
+  | 'coldStratification' | 'coldMoistDays' | 'seedNeedsLight' | 'scarify' | 'hotWaterSoak' | 'seedsPerPound'
+  | 'seedlingsPerPot'> & Partial<Pick<SpeciesDetails, 'toxic' | 'sources'>>
 
 export interface SpeciesSetting { grow?: boolean; seedlingsPerPot?: number | null }
 export interface SeedPlanSettings { margin: number; species: Record<string, SpeciesSetting> }
