@@ -20,5 +20,30 @@ export function useFormErrors() {
 
   const of = (name: string) => fields.value[name]
 
-  return { fields, message, clear, take, of }
+  const busy = ref(false)
+
+  /** Checks a form with the same zod schema the server uses; on failure fills the fields and answers undefined. */
+  function check<T>(schema: { safeParse(v: unknown): { success: true; data: T } | { success: false; error: { issues: Array<{ path: PropertyKey[]; message: string }> } } }, value: unknown): T | undefined {
+    clear()
+    const parsed = schema.safeParse(value)
+    if (parsed.success) return parsed.data
+    fields.value = Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message]))
+    return undefined
+  }
+
+  /** Runs a submit: busy while it runs, a failure becomes messages beside the fields; true when it worked. */
+  async function run(submit: () => Promise<unknown>): Promise<boolean> {
+    busy.value = true
+    try {
+      await submit()
+      return true
+    } catch (e) {
+      take(e)
+      return false
+    } finally {
+      busy.value = false
+    }
+  }
+
+  return { fields, message, clear, take, of, busy, check, run }
 }
