@@ -24,6 +24,7 @@ import { computed, ref, shallowRef, triggerRef } from 'vue'
 import { emptyYardDocument, isAreaPlanting, type YardArea, type YardDocument, type YardLine, type YardPlanting } from '#shared/schemas/yard-document'
 import { METRES_PER_FOOT, type Units } from '#shared/utils/units'
 import { ringArea, type Point } from '#shared/utils/polygon'
+import type { Score, Share } from '#shared/schemas/score'
 
 export type YardAccessLevel = 'owner' | 'edit' | 'view'
 export type Element =
@@ -324,16 +325,8 @@ export type ShapeMode = 'rect' | 'polygon'
 
 export interface PlantChoice { species: string | null; commonName?: string | null; spread?: number; height?: number; spacing?: number | null }
 
-export interface ScoreShare { native: number; total: number; share: number | null }
-export interface ScoreResult {
-  goal: number
-  shares: { count: ScoreShare; area: ScoreShare; volume: ScoreShare }
-  byStatus: Record<'native' | 'introduced' | 'invasive' | 'nativeAndIntroduced' | 'unknown', { count: number; area: number; volume: number }>
-  straightSpecies?: { count: ScoreShare; area: ScoreShare; volume: ScoreShare }
-  plantings: Array<{ id: string; status: PlantingStatusName; layer: 'tree' | 'shrub' | 'ground'; count: number | null; area: number; volume: number }>
-  moves: Array<{ share: 'count' | 'area' | 'volume'; kind: string; amount: number; unit: string; text: string }>
-  warnings: Array<{ id: string; message: string }>
-}
+export type ScoreShare = Share
+export type ScoreResult = Score
 export type PlantingStatusName = 'native' | 'introduced' | 'invasive' | 'nativeAndIntroduced' | 'unknown'
 
 export const useEditorViewStore = defineStore('editor-view', () => {

@@ -1,9 +1,10 @@
-// The score of a yard document sent by the editor on every change; nothing is stored.
-import { yardDocument } from '#shared/schemas/yard-document'
-import { scoreDocument } from '../services/scoring'
+// The score of a yard as the editor sends it on every change: the whole document, or its changes against the
+// basis of an earlier answer (see server/services/score-basis.ts). Nothing is stored in the database.
+import { scoreRequest } from '#shared/schemas/score'
+import { scoreForRequest } from '../services/score-basis'
 
 export default defineEventHandler(async (event) => {
-  const doc = await readBodyWith(event, yardDocument)
-  await requireUser(event)
-  return scoreDocument(doc)
+  const request = await readBodyWith(event, scoreRequest)
+  const user = await requireUser(event)
+  return scoreForRequest(user.id, request)
 })

@@ -8,8 +8,16 @@ export async function ensureOrganisation() {
   if (!row) await db.insert(organisation).values({ id: 1, name: 'Our native yards group', goal: DEFAULT_GOAL }).onDuplicateKeyUpdate({ set: { id: 1 } })
 }
 
+// the editor re-scores on every change and the goal almost never changes (there is no route that sets it), so
+// each instance re-reads it at most every few seconds
+const GOAL_TTL_MS = 5_000
+let goalCache: { goal: number; until: number } | null = null
+
 /** The organisation's goal share (default 0.70). */
 export async function organisationGoal(): Promise<number> {
+  if (goalCache && goalCache.until > Date.now()) return goalCache.goal
   const [row] = await useDb().select({ goal: organisation.goal }).from(organisation).limit(1)
-  return row ? Number(row.goal) : DEFAULT_GOAL
+  const goal = row ? Number(row.goal) : DEFAULT_GOAL
+  goalCache = { goal, until: Date.now() + GOAL_TTL_MS }
+  return goal
 }

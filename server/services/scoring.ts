@@ -3,7 +3,7 @@
 import { isAreaPlanting, type YardDocument, type YardPlanting } from '#shared/schemas/yard-document'
 import type { Layer, PlantingStatus, SpeciesFacts } from '#shared/types/species'
 import type { Score, ScoreWarning, Shares, ShareKind, Totals } from '#shared/schemas/score'
-import { circleAreaInLot, cutterOf, shapeOf, visibleArea, ringInLot, type Cutter, type Shape } from '#shared/utils/geometry'
+import { circleAreaInLot, cutterOf, visibleArea, ringInLot, type Cutter, type Shape } from '#shared/utils/geometry'
 import type { Ring } from '#shared/utils/polygon'
 import { pointInRing } from '#shared/utils/polygon'
 import { plantsNeeded } from '#shared/utils/plant-count'
@@ -62,6 +62,15 @@ type Drawn = { order: [number, number, number]; ring: Ring; plantingIndex: numbe
  * For each ground-layer area planting, the shapes drawn above it: anything with a higher z, and at equal z
  * the later one (areas sit under plantings of the same z, so a drift drawn in its bed stays visible).
  */
+// prepared shapes per outline array: a re-score after an edit shares the unchanged outlines (never mutated
+// once validated) with the document before it, so their shapes are not worked out again
+const preparedShapes = new WeakMap<Ring, Shape>()
+function preparedShape(ring: Ring): Shape {
+  let shape = preparedShapes.get(ring)
+  if (!shape) preparedShapes.set(ring, (shape = cutterOf(ring)))
+  return shape
+}
+
 export function groundCutters(doc: YardDocument, isGroundArea: (index: number) => boolean, shapes = new Map<number, Shape>()): Map<number, Cutter[]> {
   const drawn: Drawn[] = []
   doc.areas.forEach((a, i) => drawn.push({ order: [a.z ?? 0, 0, i], ring: a.points as Ring, plantingIndex: null }))
@@ -70,17 +79,49 @@ export function groundCutters(doc: YardDocument, isGroundArea: (index: number) =
   })
   drawn.sort((a, b) => a.order[0] - b.order[0] || a.order[1] - b.order[1] || a.order[2] - b.order[2])
   const out = new Map<number, Cutter[]>()
-  const cutters = drawn.map((d) => cutterOf(d.ring))
+  const cutters = drawn.map((d) => preparedShape(d.ring))
   drawn.forEach((d, k) => { if (d.plantingIndex !== null) { out.set(d.plantingIndex, cutters.slice(k + 1)); shapes.set(d.plantingIndex, cutters[k]!) } })
   return out
 }
 
 export function lotShape(doc: YardDocument): Shape | null {
-  return doc.boundary.length >= 3 ? shapeOf(doc.boundary as Ring) : null
+  return doc.boundary.length >= 3 ? preparedShape(doc.boundary as Ring) : null
+}
+
+/** What the engine worked out for one planting object, with everything the answer depended on. */
+interface Remembered {
+  facts: SpeciesFacts | undefined
+  lot: Shape | null
+  region: string | null
+  above: Cutter[] | undefined
+  measure: PlantingMeasure
+  warnings: ScoreWarning[]
+}
+
+/**
+ * Per-planting results kept between scores of one yard as it is edited, keyed by the planting object (a
+ * re-score after an edit shares unchanged plantings with the document before it). A result is reused only when
+ * the planting, its species facts, the lot, the region and — for the ground layer — every shape drawn above it
+ * are the same, so the answer is exactly what a fresh computation gives.
+ */
+export type MeasureMemo = WeakMap<YardPlanting, Remembered>
+
+function sameFacts(a: SpeciesFacts | undefined, b: SpeciesFacts | undefined): boolean {
+  if (a === b) return true
+  if (!a || !b) return false
+  return a.status === b.status && a.layer === b.layer && a.spread === b.spread && a.height === b.height && a.spacing === b.spacing
+    && a.lawn === b.lawn && a.scientificName === b.scientificName && a.commonName === b.commonName && a.estimated.join() === b.estimated.join()
+}
+
+function sameCutters(a: Cutter[] | undefined, b: Cutter[] | undefined): boolean {
+  if (a === b) return true
+  if (!a || !b || a.length !== b.length) return false
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false
+  return true
 }
 
 /** Status, layer and footprint of every planting. */
-export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, regionArg?: string | null): MeasuredYard {
+export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, regionArg?: string | null, memo?: MeasureMemo): MeasuredYard {
   const region = regionArg ?? doc.region ?? null
   const warnings: ScoreWarning[] = []
   if (!region) warnings.push({ id: 'region', message: 'The yard has no state or province, so no plant can be counted as native yet' })
@@ -94,7 +135,20 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
 
   const plantings = doc.plantings.map((p, index): PlantingMeasure => {
     const f = factsOf[index]
-    const layer = layers[index]!
+    const above = cutters.get(index)
+    const known = memo?.get(p)
+    if (known && known.lot === lot && known.region === region && sameFacts(known.facts, f) && sameCutters(known.above, above)) {
+      for (const w of known.warnings) warnings.push(w)
+      return known.measure.index === index ? known.measure : { ...known.measure, index }
+    }
+    const mark = warnings.length
+    const measure = measurePlanting(p, index, f, layers[index]!, above)
+    if (memo) memo.set(p, { facts: f, lot, region, above, measure, warnings: warnings.slice(mark) })
+    return measure
+  })
+  return { doc, region, lot, plantings, warnings }
+
+  function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts | undefined, layer: Layer, above: Cutter[] | undefined): PlantingMeasure {
     let status: PlantingStatus = 'unknown'
     if (p.species && !region) status = 'unknown'
     else if (p.species && !f) warnings.push({ id: p.id, message: `"${p.species}" is not in the species catalogue, so it counts as unknown (not native)` })
@@ -111,7 +165,7 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
     if (isAreaPlanting(p)) {
       const spacing = p.spacing !== undefined ? p.spacing : f ? f.spacing : null
       const ring = p.points as Ring
-      const area = layer === 'ground' ? visibleArea(ring, lot, cutters.get(index) ?? [], shapes.get(index)).area : ringInLot(ring, lot).area
+      const area = layer === 'ground' ? visibleArea(ring, lot, above ?? [], shapes.get(index)).area : ringInLot(ring, lot).area
       if (area === 0) warnings.push({ id: p.id, message: layer === 'ground' ? `${name} is outside the lot or wholly covered by shapes drawn above it, so it counts nothing` : `${name} is outside the lot, so it counts nothing` })
       // built as one literal: spreading a shared base object here cost more than the geometry
       return { index, id: p.id, name, status, layer, isArea: true, lawn: f?.lawn === true, cultivar, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height, spread: null, height, spacing }
@@ -124,8 +178,7 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
     const centreIn = !lot || pointInRing([p.x!, p.y!], lot.ring)
     if (!centreIn) warnings.push({ id: p.id, message: `${name} stands outside the lot, so its plants are not counted` })
     return { index, id: p.id, name, status, layer, isArea: false, lawn: false, cultivar, count: centreIn ? count : 0, area, volume: area * height, spread, height, spacing: null }
-  })
-  return { doc, region, lot, plantings, warnings }
+  }
 }
 
 export const round3 = (x: number) => Math.round(x * 1000) / 1000
@@ -151,8 +204,8 @@ function sharesOf(plantings: PlantingMeasure[], isNative: (p: PlantingMeasure) =
 }
 
 /** The score of a yard document for a region, from species facts keyed by lower-case name, against `goal`. */
-export function scoreYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, goal: number, region?: string | null): Score {
-  const measured = measureYard(doc, facts, region)
+export function scoreYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, goal: number, region?: string | null, memo?: MeasureMemo): Score {
+  const measured = measureYard(doc, facts, region, memo)
   const { plantings, warnings } = measured
   const zero = (): Totals => ({ count: 0, area: 0, volume: 0 })
   const byStatus: Score['byStatus'] = { native: zero(), introduced: zero(), invasive: zero(), nativeAndIntroduced: zero(), unknown: zero() }
@@ -176,7 +229,7 @@ export function scoreYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, g
 }
 
 /** The score of a document, with facts from the species catalogue and the organisation's goal. */
-export async function scoreDocument(doc: YardDocument, region?: string | null): Promise<Score> {
+export async function scoreDocument(doc: YardDocument, region?: string | null, memo?: MeasureMemo): Promise<Score> {
   const where = region ?? doc.region ?? null
   const names = new Set<string>()
   for (const p of doc.plantings) if (p.species) names.add(factsKey(p.species))
@@ -186,5 +239,5 @@ export async function scoreDocument(doc: YardDocument, region?: string | null): 
     where && names.size ? loadSpeciesFacts(names, where) : Promise.resolve(new Map<string, SpeciesFacts>()),
     organisationGoal(),
   ])
-  return scoreYard(doc, facts, goal, where)
+  return scoreYard(doc, facts, goal, where, memo)
 }

@@ -95,9 +95,37 @@ const yardDocumentBase = z.object({
   backdrop: yardBackdrop.nullable().optional(),
 })
 
-/** Checks across elements, on a document whose fields are each well formed: ids, outlines, point or area. */
-function documentIssues(doc: z.output<typeof yardDocumentBase>): Array<{ path: PropertyKey[]; message: string }> {
-  const issues: Array<{ path: PropertyKey[]; message: string }> = []
+/**
+ * The top-level fields other than the two long lists, each optional and without defaults: what a set of changes
+ * to a document may replace (see shared/utils/yard-changes.ts); null clears an optional field.
+ */
+export const yardDocumentFields = z.strictObject({
+  name: yardDocumentBase.shape.name.unwrap().nullable().optional(),
+  region: yardDocumentBase.shape.region.unwrap().nullable().optional(),
+  zone: yardDocumentBase.shape.zone,
+  frost: yardDocumentBase.shape.frost.unwrap().nullable().optional(),
+  units: yardDocumentBase.shape.units.unwrap().optional(),
+  boundary: yardDocumentBase.shape.boundary.unwrap().optional(),
+  lines: yardDocumentBase.shape.lines.unwrap().optional(),
+  backdrop: yardDocumentBase.shape.backdrop,
+})
+
+export type ElementIssue = { path: PropertyKey[]; message: string }
+
+/** What is wrong with one well-formed area or planting on its own: an outline that crosses itself, no position. */
+export function elementIssue(list: 'areas' | 'plantings', item: YardArea | YardPlanting): ElementIssue | null {
+  if (list === 'plantings') {
+    const issue = plantingShapeIssue(item as YardPlanting)
+    if (issue) return { path: issue.path, message: issue.message }
+  }
+  const pts = item.points as Point[] | undefined
+  const edge = pts ? firstSelfIntersection(pts) : -1
+  return edge >= 0 ? { path: ['points'], message: `The outline crosses itself (edge ${edge + 1}) or has no area` } : null
+}
+
+/** Element ids must be unique across areas, plantings and lines. */
+export function duplicateIdIssues(doc: Pick<YardDocument, 'areas' | 'plantings' | 'lines'>): ElementIssue[] {
+  const issues: ElementIssue[] = []
   const seen = new Set<string>()
   for (const [list, items] of [['areas', doc.areas], ['plantings', doc.plantings], ['lines', doc.lines]] as const) {
     items.forEach((item, i) => {
@@ -105,16 +133,18 @@ function documentIssues(doc: z.output<typeof yardDocumentBase>): Array<{ path: P
       seen.add(item.id)
     })
   }
-  const crossing = (list: string, i: number, pts: Point[]) => {
-    const edge = firstSelfIntersection(pts)
-    if (edge >= 0) issues.push({ path: [list, i, 'points'], message: `The outline crosses itself (edge ${edge + 1}) or has no area` })
+  return issues
+}
+
+/** Checks across elements, on a document whose fields are each well formed: ids, outlines, point or area. */
+function documentIssues(doc: z.output<typeof yardDocumentBase>): ElementIssue[] {
+  const issues = duplicateIdIssues(doc)
+  for (const [list, items] of [['areas', doc.areas], ['plantings', doc.plantings]] as const) {
+    items.forEach((item, i) => {
+      const issue = elementIssue(list, item)
+      if (issue) issues.push({ path: [list, i, ...issue.path], message: issue.message })
+    })
   }
-  doc.areas.forEach((a, i) => crossing('areas', i, a.points as Point[]))
-  doc.plantings.forEach((p, i) => {
-    const issue = plantingShapeIssue(p)
-    if (issue) issues.push({ path: ['plantings', i, ...issue.path], message: issue.message })
-    else if (p.points) crossing('plantings', i, p.points as Point[])
-  })
   return issues
 }
 

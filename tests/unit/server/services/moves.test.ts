@@ -3,8 +3,7 @@ import fc from 'fast-check'
 import { scoreYard } from '../../../../server/services/scoring'
 import { applyMoves } from '../../../../server/services/moves'
 import type { ShareKind } from '#shared/schemas/score'
-import type { YardArea, YardDocument, YardPlanting } from '#shared/schemas/yard-document'
-import { facts, rect, yard, NATIVE_FOR } from './score-fixtures'
+import { facts, rect, yard, randomYards, NATIVE_FOR } from './score-fixtures'
 
 const nativeFor = (layer: keyof typeof NATIVE_FOR) => NATIVE_FOR[layer]
 const movesFor = (s: ReturnType<typeof scoreYard>, share: ShareKind) => s.moves.filter((m) => m.share === share)
@@ -49,27 +48,7 @@ describe('moves to the goal', () => {
   })
 
   it('bring every share to at least the goal when applied, over random yards', () => {
-    const species = ['Quercus alba', 'Acer platanoides', 'Cornus sericea', 'Berberis thunbergii', 'Lonicera maackii', 'Carex pensylvanica',
-      'Echinacea purpurea', 'Hosta plantaginea', 'Celastrus orbiculatus', 'Poa pratensis', 'Yucca brevifolia', 'Plantago imaginaria', null]
-    const size = fc.double({ min: 0.2, max: 12, noNaN: true })
-    const box = (w: number, h: number) => fc.tuple(fc.double({ min: -2, max: w, noNaN: true }), fc.double({ min: -2, max: h, noNaN: true }), fc.double({ min: 0.5, max: 10, noNaN: true }), fc.double({ min: 0.5, max: 10, noNaN: true }))
-      .map(([x, y, bw, bh]) => rect(x, y, bw, bh))
-    const yards = fc.record({ w: fc.integer({ min: 6, max: 40 }), h: fc.integer({ min: 6, max: 40 }), notch: fc.boolean(), lawn: fc.constantFrom('Poa pratensis', 'Festuca arundinacea', null) })
-      .chain(({ w, h, notch, lawn }) => fc.record({
-        areas: fc.array(fc.record({ kind: fc.constantFrom('building', 'paving', 'bed', 'water'), z: fc.integer({ min: 0, max: 9 }), points: box(w, h) }), { maxLength: 6 }),
-        drifts: fc.array(fc.record({ species: fc.constantFrom(...species), z: fc.integer({ min: 0, max: 9 }), points: box(w, h), spacing: fc.option(fc.double({ min: 0.2, max: 1.5, noNaN: true }), { nil: undefined }), height: fc.option(size, { nil: undefined }) }), { maxLength: 5 }),
-        plants: fc.array(fc.record({ species: fc.constantFrom(...species), x: fc.double({ min: -1, max: w + 1, noNaN: true }), y: fc.double({ min: -1, max: h + 1, noNaN: true }), count: fc.integer({ min: 1, max: 30 }), spread: fc.option(size, { nil: undefined }), height: fc.option(size, { nil: undefined }) }), { maxLength: 15 }),
-        goal: fc.double({ min: 0.3, max: 0.95, noNaN: true }),
-      }).map(({ areas, drifts, plants, goal }): { doc: YardDocument; goal: number } => {
-        const boundary: [number, number][] = notch ? [[0, 0], [w, 0], [w, h / 2], [w / 2, h / 2], [w / 2, h], [0, h]] : rect(0, 0, w, h)
-        const plantings: YardPlanting[] = [
-          ...(lawn ? [{ id: 'lawn', species: lawn, z: 0, points: rect(0, 0, w, h), spacing: null, height: 0.08 }] : []),
-          ...drifts.map((d, i) => ({ id: `d${i}`, ...d })),
-          ...plants.map((p, i) => ({ id: `p${i}`, ...p })),
-        ]
-        return { doc: yard({ boundary, areas: areas.map((a, i): YardArea => ({ id: `a${i}`, ...a })), plantings }), goal }
-      }))
-
+    const yards = randomYards()
     const applied = new Set<string>()
     fc.assert(fc.property(yards, ({ doc, goal }) => {
       const score = scoreYard(doc, facts(), goal)

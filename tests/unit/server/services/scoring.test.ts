@@ -3,7 +3,10 @@ import { scoreYard } from '../../../../server/services/scoring'
 import { DEFAULT_GOAL } from '../../../../server/services/organisation'
 import { scoreSchema } from '#shared/schemas/score'
 import { TRIANGULAR_FACTOR } from '#shared/utils/plant-count'
-import { facts, rect, yard } from './score-fixtures'
+import fc from 'fast-check'
+import { applyYardChanges, changesSince, yardSnapshot } from '#shared/utils/yard-changes'
+import { facts, rect, yard, randomYards, randomEdits, applyEdit } from './score-fixtures'
+import type { MeasureMemo } from '../../../../server/services/scoring'
 
 // A hand-worked yard: a 10 × 10 m lot of lawn, a 4 × 5 m bed drawn above it holding a sedge drift at 0.5 m
 // spacing, and a native tree 4 m across standing over the lawn.
@@ -129,4 +132,26 @@ describe('the default goal', () => {
     // sustain breeding chickadees; the organisation's goal defaults to it
     expect(DEFAULT_GOAL).toBe(0.7)
   })
+})
+
+describe('re-scoring after edits', () => {
+  it('reuses per-planting results and still gives exactly a fresh score (random yards and edits)', () => {
+    const wire = <T>(v: T): T => JSON.parse(JSON.stringify(v))
+    let reused = 0
+    fc.assert(fc.property(randomYards(), randomEdits(8), ({ doc, goal }, edits) => {
+      const memo: MeasureMemo = new WeakMap()
+      let before = wire(doc)
+      scoreYard(before, facts(), goal, null, memo)
+      for (const [i, e] of edits.entries()) {
+        // the server's document after the changes the editor sends: untouched elements are shared with `before`
+        const after = applyYardChanges(before, wire(changesSince(yardSnapshot(before), wire(applyEdit(before, e, i)))!)).doc
+        const again = scoreYard(after, facts(), goal, null, memo)
+        // reference: the same document scored from scratch, sharing nothing
+        expect(again).toEqual(scoreYard(wire(after), facts(), goal))
+        reused += after.plantings.filter((p) => before.plantings.includes(p)).length
+        before = after
+      }
+    }), { numRuns: 150 })
+    expect(reused).toBeGreaterThan(100)
+  }, 60_000)
 })
