@@ -16,6 +16,13 @@ import {
   type OverrideField, type SpeciesListQuery,
 } from '#shared/schemas/species'
 import { REGIONS } from '#shared/utils/regions'
+import {
+  buildRegionFits, buildSearchIndex, buildTableIndex, rankFits, rankSwaps, searchPage, tablePage,
+  type CachedSpecies, type FitConditions, type FitItem, type RegionFits, type SearchIndex, type TableIndex, type YardContext,
+} from './catalogue-index'
+
+export { BLOOM_SEASON } from './catalogue-index'
+export type { CachedSpecies, FitConditions, FitItem, YardContext } from './catalogue-index'
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
 type Executor = Db | Tx
@@ -132,20 +139,16 @@ async function bumpStamp(db: Executor, version?: string) {
 // ---------------------------------------------------------------------------------------------------------
 // The in-memory copy
 
-export interface CachedSpecies {
-  id: number
-  origin: 'usda' | 'coordinator'
-  minZoneIndex: number | null
-  key: string
-  data: CatalogueSpeciesData
-}
-
 interface Catalogue {
   stamp: string
   list: CachedSpecies[]
   byKey: Map<string, CachedSpecies>
   byId: Map<number, CachedSpecies>
   regions: Map<string, Promise<Map<number, RegionStatus>>>
+  /** precomputed per copy (catalogue-index.ts); a new stamp makes a new copy, so these never outlive their data */
+  table: TableIndex
+  search: SearchIndex
+  fits: Map<string, Promise<RegionFits>>
 }
 
 let cache: Catalogue | null = null
@@ -165,13 +168,20 @@ async function buildCatalogue(forStamp: string): Promise<Catalogue> {
   const db = useDb()
   const [file, ids, overrideRows] = await Promise.all([
     readCatalogueFile(),
-    db.select({ id: catalogueSpecies.id, name: catalogueSpecies.scientificName, origin: catalogueSpecies.origin }).from(catalogueSpecies),
+    // the name ranks come from the database so the table sorts names by its collation, as ORDER BY did
+    db.select({
+      id: catalogueSpecies.id, name: catalogueSpecies.scientificName, origin: catalogueSpecies.origin,
+      nameRank: sql<number>`dense_rank() over (order by ${catalogueSpecies.scientificName})`,
+      commonRank: sql<number>`dense_rank() over (order by ${catalogueSpecies.commonName})`,
+    }).from(catalogueSpecies),
     db.select().from(catalogueOverrides),
   ])
   const overrides = groupOverrides(overrideRows)
   const entries = new Map<string, Omit<CatalogueEntry, 'regions'>>()
   for (const e of file.species) entries.set(nameKey(e.scientificName), e)
   const list: CachedSpecies[] = []
+  const nameRank: number[] = []
+  const commonRank: number[] = []
   for (const row of ids) {
     const key = nameKey(row.name)
     const own = overrides.get(key)
@@ -179,8 +189,13 @@ async function buildCatalogue(forStamp: string): Promise<Catalogue> {
     if (!base) continue
     const data = withOverrides(base, own)
     list.push({ id: row.id, origin: row.origin, minZoneIndex: zoneIndex(data.minZone), key, data })
+    nameRank.push(Number(row.nameRank))
+    commonRank.push(Number(row.commonRank))
   }
-  return { stamp: forStamp, list, byKey: new Map(list.map((s) => [s.key, s])), byId: new Map(list.map((s) => [s.id, s])), regions: new Map() }
+  return {
+    stamp: forStamp, list, byKey: new Map(list.map((s) => [s.key, s])), byId: new Map(list.map((s) => [s.id, s])), regions: new Map(),
+    table: buildTableIndex(list, nameRank, commonRank), search: buildSearchIndex(list), fits: new Map(),
+  }
 }
 
 /** This instance's copy of the catalogue, rebuilt when the stamp row says the database changed. */
@@ -204,6 +219,17 @@ export function regionStatuses(cat: Catalogue, region: string): Promise<Map<numb
       .then((rows) => new Map(rows.map((r) => [r.id, r.status])))
     p.catch(() => cat.regions.delete(region))
     cat.regions.set(region, p)
+  }
+  return p
+}
+
+/** A region's natives pre-ranked for fits and swaps, made once per region per catalogue copy. */
+function regionFits(cat: Catalogue, region: string): Promise<RegionFits> {
+  let p = cat.fits.get(region)
+  if (!p) {
+    p = regionStatuses(cat, region).then((statuses) => buildRegionFits(statuses, cat.byId))
+    p.catch(() => cat.fits.delete(region))
+    cat.fits.set(region, p)
   }
   return p
 }
@@ -265,60 +291,22 @@ export async function getSpeciesDetails(names: string[], region: string): Promis
 }
 
 // ---------------------------------------------------------------------------------------------------------
-// The species table: SQL with server paging (indexes on region and name)
-
-/**
- * Search-as-you-type over this instance's in-memory copy: a substring scan of ~20,000 names takes about a
- * millisecond, where `like '%term%'` in SQL scans the table twice (rows and count). Same ranking and shape.
- */
-// lower-cased names per cached species, made once per catalogue copy rather than on every keystroke
-const lowered = new WeakMap<CachedSpecies, [string, string]>()
-function lowerNames(s: CachedSpecies): [string, string] {
-  let v = lowered.get(s)
-  if (!v) lowered.set(s, v = [s.data.scientificName.toLowerCase(), (s.data.commonName ?? '').toLowerCase()])
-  return v
-}
-
-async function searchSpecies(q: SpeciesListQuery & { q: string }) {
-  const cat = await useCatalogue()
-  const statuses = q.region ? await regionStatuses(cat, q.region) : new Map<number, RegionStatus>()
-  const term = q.q.toLowerCase()
-  const page = q.page ?? 1
-  const pageSize = q.pageSize ?? SPECIES_PAGE_SIZE
-  const hits: Array<{ s: CachedSpecies; status: RegionStatus; rank: number }> = []
-  for (const s of cat.list) {
-    const d = s.data
-    const [sci, common] = lowerNames(s)
-    if (!sci.includes(term) && !common.includes(term)) continue
-    if (q.layer && d.layer !== q.layer) continue
-    if (q.sun && !d.sun.includes(q.sun)) continue
-    if (q.moisture && !d.moisture.includes(q.moisture)) continue
-    if (q.soil && !d.soil.includes(q.soil)) continue
-    if (q.hasFacts && !d.hasCharacteristics) continue
-    const status = statuses.get(s.id) ?? 'absent'
-    if (q.status && status !== q.status) continue
-    // plantable species (with USDA facts) first, then names starting with the term
-    const prefix = sci.startsWith(term) || common.startsWith(term) || common.includes(` ${term}`)
-    hits.push({ s, status, rank: (d.hasCharacteristics ? 2 : 0) + (prefix ? 1 : 0) })
-  }
-  hits.sort((a, b) => b.rank - a.rank || (a.s.data.scientificName < b.s.data.scientificName ? -1 : a.s.data.scientificName > b.s.data.scientificName ? 1 : 0))
-  return {
-    items: hits.slice((page - 1) * pageSize, page * pageSize).map(({ s, status }) => {
-      const d = s.data
-      return {
-        scientificName: d.scientificName, commonName: d.commonName, layer: d.layer, height: d.height, spread: d.spread,
-        sun: d.sun, moisture: d.moisture, soil: d.soil, bloomMonths: d.bloomMonths, minZone: d.minZone, toxic: d.toxic,
-        hasFacts: d.hasCharacteristics, origin: s.origin, status: q.region ? status : null, estimated: d.estimated, spacing: d.spacing,
-      }
-    }),
-    total: hits.length,
-    page,
-    pageSize,
-  }
-}
+// The species table and search-as-you-type, from this instance's in-memory copy (catalogue-index.ts): sort
+// orders per column made once per copy, so a page is a filter over one precomputed order, cached per query
 
 export async function listSpecies(q: SpeciesListQuery) {
-  if (q.q && (!q.sort || q.sort === 'relevance')) return searchSpecies(q as SpeciesListQuery & { q: string })
+  const cat = await useCatalogue()
+  const statuses = q.region ? await regionStatuses(cat, q.region) : new Map<number, RegionStatus>()
+  if (q.q && (!q.sort || q.sort === 'relevance')) return searchPage(cat.search, q as SpeciesListQuery & { q: string }, statuses)
+  if (!q.q) return tablePage(cat.table, q, statuses)
+  return listSpeciesSql(q)
+}
+
+/**
+ * A search term with a column sort stays in SQL: `like` there matches by the database's collation (accents and
+ * case folded, as the table's users expect), which the plain lower-case substring of search-as-you-type does not.
+ */
+async function listSpeciesSql(q: SpeciesListQuery) {
   const db = useDb()
   const page = q.page ?? 1
   const pageSize = q.pageSize ?? SPECIES_PAGE_SIZE
@@ -400,124 +388,12 @@ export async function speciesPage(name: string, region?: string) {
 }
 
 // ---------------------------------------------------------------------------------------------------------
-// Good fits and swaps, over the in-memory copy
-
-export interface FitConditions {
-  region: string
-  zone?: string | null
-  sun?: string
-  soil?: string
-  moisture?: string
-  layer?: Layer
-  maxSpread?: number
-}
-
-export interface YardContext {
-  /** months (1–12) in which some native planting blooms */
-  bloomMonths: Set<number>
-  /** layers that have at least one native planting */
-  layers: Set<Layer>
-}
-
-export interface FitItem {
-  scientificName: string
-  commonName: string | null
-  layer: Layer
-  spread: number
-  height: number
-  spacing: number | null
-  minZone: string | null
-  sun: string[]
-  soil: string[]
-  moisture: string[]
-  bloomMonths: number[]
-  toxic: boolean
-  estimated: string[]
-  status: RegionStatus
-  score: number
-  reasons: string[]
-}
-
-const MONTH_NAMES = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December']
-// the months a yard shows bloom in (northern temperate growing season)
-export const BLOOM_SEASON = [3, 4, 5, 6, 7, 8, 9, 10]
-const SUN_WORDS: Record<string, string> = { full: 'full sun', part: 'part shade', shade: 'shade' }
-const SOIL_WORDS: Record<string, string> = { sand: 'sandy', loam: 'loamy', clay: 'clay' }
-const MOISTURE_WORDS: Record<string, string> = { dry: 'dry', medium: 'medium (moist, well-drained)', wet: 'wet' }
-
-/** Whether a species passes the hard filters: native in the region, hardy in the zone, takes the site, fits. */
-function passes(s: CachedSpecies, status: RegionStatus | undefined, c: FitConditions, zoneIdx: number | null): boolean {
-  const d = s.data
-  if (status !== 'native') return false
-  if (zoneIdx !== null && (s.minZoneIndex === null || s.minZoneIndex > zoneIdx)) return false
-  if (c.layer && d.layer !== c.layer) return false
-  if (c.sun && !d.sun.includes(c.sun as never)) return false
-  if (c.soil && !d.soil.includes(c.soil as never)) return false
-  if (c.moisture && !d.moisture.includes(c.moisture as never)) return false
-  if (c.maxSpread !== undefined && d.spread > c.maxSpread) return false
-  return true
-}
-
-/**
- * Score 0–100; the reasons in plain words are written into `reasons` when given (`reasons?.push(…)` skips
- * building the words when not, so ranking thousands of natives only words the ones shown).
- */
-function scoreFit(s: CachedSpecies, c: FitConditions, yard: YardContext | null, reasons?: string[]): number {
-  const d = s.data
-  let score = 0
-  const site: string[] = []
-  if (c.sun) { score += 15; site.push(SUN_WORDS[c.sun]!) }
-  if (c.soil) { score += 10; site.push(`${SOIL_WORDS[c.soil]} soil`) }
-  if (c.moisture) { score += 10; site.push(`${MOISTURE_WORDS[c.moisture]} ground`) }
-  if (site.length) reasons?.push(`Takes ${site.join(', ')}`)
-  if (c.zone && d.minZone) { score += 10; reasons?.push(`Hardy in zone ${c.zone} (to zone ${d.minZone})`) }
-  const showy = d.flowerConspicuous !== false
-  if (yard) {
-    const gaps = showy ? d.bloomMonths.filter((m) => BLOOM_SEASON.includes(m) && !yard.bloomMonths.has(m)) : []
-    if (gaps.length) {
-      score += Math.min(20, gaps.length * 10)
-      reasons?.push(`Blooms in ${gaps.map((m) => MONTH_NAMES[m - 1]).join(' and ')}, when nothing native in your yard does`)
-    }
-    if (!yard.layers.has(d.layer)) { score += 15; reasons?.push(`Adds the ${d.layer === 'ground' ? 'ground' : d.layer} layer your yard lacks`) }
-  } else if (showy && d.bloomMonths.length) {
-    score += 5
-    reasons?.push(`Blooms in ${d.bloomMonths.map((m) => MONTH_NAMES[m - 1]).join(', ')}`)
-  }
-  if (d.wildlife.includes('seed or fruit for birds')) { score += 8; reasons?.push('Seed or fruit for birds') }
-  if (d.wildlife.includes('flowers for pollinators')) { score += 7; reasons?.push('Flowers for bees and butterflies') }
-  if (d.commercialAvailability === 'Routinely Available') { score += 10; reasons?.push('Available from nurseries') }
-  if (d.estimated.includes('spread')) reasons?.push('Mature spread is an estimate')
-  return Math.min(100, score)
-}
-
-function fitItem(s: CachedSpecies, status: RegionStatus, score: number, reasons: string[]): FitItem {
-  const d = s.data
-  return {
-    scientificName: d.scientificName, commonName: d.commonName, layer: d.layer, spread: d.spread, height: d.height,
-    spacing: d.spacing, minZone: d.minZone, sun: d.sun, soil: d.soil, moisture: d.moisture, bloomMonths: d.bloomMonths,
-    toxic: d.toxic, estimated: d.estimated, status, score, reasons,
-  }
-}
+// Good fits and swaps, over the in-memory copy (ranking in catalogue-index.ts)
 
 /** Native species that fit a spot, best first. */
 export async function findFits(c: FitConditions, yard: YardContext | null, limit = 50): Promise<FitItem[]> {
   const cat = await useCatalogue()
-  const statuses = await regionStatuses(cat, c.region)
-  const zoneIdx = zoneIndex(c.zone)
-  const scored: { s: CachedSpecies; score: number }[] = []
-  for (const [id, status] of statuses) {
-    if (status !== 'native') continue
-    const s = cat.byId.get(id)
-    if (!s || !passes(s, status, c, zoneIdx)) continue
-    scored.push({ s, score: scoreFit(s, c, yard) })
-  }
-  // ties broken by a code-unit comparison of names: stable, and far cheaper than localeCompare over thousands
-  scored.sort((a, b) => b.score - a.score || (a.s.data.scientificName < b.s.data.scientificName ? -1 : a.s.data.scientificName > b.s.data.scientificName ? 1 : 0))
-  return scored.slice(0, limit).map(({ s, score }) => {
-    const reasons: string[] = []
-    scoreFit(s, c, yard, reasons)
-    return fitItem(s, 'native', score, reasons)
-  })
+  return rankFits(await regionFits(cat, c.region), c, yard, limit)
 }
 
 /** What a yard's native plantings already give: bloom months and layers. */
@@ -541,28 +417,7 @@ export async function findSwaps(name: string, c: Omit<FitConditions, 'layer' | '
   const targetStatus = statuses.get(target.id) ?? 'absent'
   const species = { scientificName: target.data.scientificName, commonName: target.data.commonName, status: targetStatus, layer: target.data.layer, height: target.data.height, spread: target.data.spread }
   if (targetStatus === 'native') return { species, items: [] as FitItem[] }
-  const zoneIdx = zoneIndex(c.zone)
-  const h0 = target.data.height
-  const cond: FitConditions = { ...c, layer: target.data.layer }
-  const scored: { s: CachedSpecies; score: number }[] = []
-  for (const [id, status] of statuses) {
-    if (status !== 'native') continue
-    const s = cat.byId.get(id)
-    if (!s || !passes(s, status, cond, zoneIdx)) continue
-    const ratio = s.data.height / h0
-    if (ratio < 0.5 || ratio > 2) continue
-    const closeness = Math.round(20 * (1 - Math.abs(Math.log2(ratio))))
-    scored.push({ s, score: Math.min(100, scoreFit(s, cond, null) + closeness) })
-  }
-  scored.sort((a, b) => b.score - a.score || (a.s.data.scientificName < b.s.data.scientificName ? -1 : a.s.data.scientificName > b.s.data.scientificName ? 1 : 0))
-  return {
-    species,
-    items: scored.slice(0, limit).map(({ s, score }) => {
-      const reasons = [`Same layer (${s.data.layer}) and similar size: ${s.data.height} m tall, against ${h0} m`]
-      scoreFit(s, cond, null, reasons)
-      return fitItem(s, 'native', score, reasons)
-    }),
-  }
+  return { species, items: rankSwaps(await regionFits(cat, c.region), target, c, limit) }
 }
 
 // ---------------------------------------------------------------------------------------------------------
