@@ -160,11 +160,19 @@ describe('coordinator CSV import and export', () => {
 
   it('applies a clean file in one go: facts, a regional status, a new species', async () => {
     const csv = 'scientificName,region,status,spread,layer,commonName,source\nZizia aurea,,,3 ft,,,\nZizia aurea,US-AK,native,,,,coordinator\nTestia wildwardensis,US-OH,native,0.5,ground,test plant,from memory\n'
+    // the table, search and fits answer from a per-instance copy with cached orders and answers: ask first so they are warm
+    const table = '/api/species?region=US-OH&status=native&layer=ground&sort=spread&pageSize=200'
+    const tableBefore = (await anon.get(table)).body.total
+    expect((await anon.get('/api/species?region=US-OH&q=wildwardensis')).body.total).toBe(0)
     const preview = await post('/api/catalogue/import/preview', csv)
     expect(preview.body.errors).toEqual([])
     expect(preview.body.newSpecies).toEqual(['Testia wildwardensis'])
     const apply = await post('/api/catalogue/import/apply', csv)
     expect(apply.status).toBe(200)
+    // the instance that applied the file answers from the new catalogue at once (the stamp row moved)
+    expect((await anon.get(table)).body.total).toBe(tableBefore + 1)
+    expect((await anon.get('/api/species?region=US-OH&q=wildwardensis')).body.items).toEqual([expect.objectContaining({ scientificName: 'Testia wildwardensis', status: 'native', spread: 0.5 })])
+    expect((await anon.get('/api/species?region=US-AK&q=zizia%20aurea')).body.items.find((i: any) => i.scientificName === 'Zizia aurea')).toMatchObject({ status: 'native', spread: 0.91 })
     const z = await detail('Zizia aurea', 'US-AK')
     // 3 ft × 0.3048 m/ft = 0.91 m (to the centimetre); spacing follows an estimated default from the spread
     expect(z.spread).toBe(0.91)
