@@ -30,6 +30,7 @@ export class Lru<K, V> {
     this.map.set(key, value)
     if (this.map.size > this.max) this.map.delete(this.map.keys().next().value as K)
   }
+  delete(key: K) { this.map.delete(key) }
   get size() { return this.map.size }
 }
 
@@ -114,18 +115,21 @@ export function tableFilter(q: SpeciesTableQuery, statuses: Map<number, RegionSt
   }
 }
 
-/** List positions of the species passing the filters, in the requested order; cached per query on this copy. */
-export function tableMatches(ix: TableIndex, q: SpeciesTableQuery, statuses: Map<number, RegionStatus>): Int32Array {
+/**
+ * List positions of the species passing the filters, in the requested order; cached per query on this copy.
+ * `named` (per list position, 1 = the name matches the query's term) narrows it to a name search.
+ */
+export function tableMatches(ix: TableIndex, q: SpeciesListQuery, statuses: Map<number, RegionStatus>, named?: Uint8Array): Int32Array {
   const sort = q.sort ?? 'name'
   const desc = q.dir === 'desc'
-  const key = JSON.stringify([q.region ?? '', sort, desc, q.layer ?? '', q.sun ?? '', q.moisture ?? '', q.soil ?? '', !!q.hasFacts, q.status ?? ''])
+  const key = JSON.stringify([q.region ?? '', sort, desc, q.layer ?? '', q.sun ?? '', q.moisture ?? '', q.soil ?? '', !!q.hasFacts, q.status ?? '', named ? q.q ?? '' : ''])
   let hits = ix.results.get(key)
   if (!hits) {
     const order = tableOrder(ix, sort, desc, q.region, statuses)
     const pass = tableFilter(q, statuses)
     const out = new Int32Array(order.length)
     let n = 0
-    for (let k = 0; k < order.length; k++) if (pass(ix.list[order[k]!]!)) out[n++] = order[k]!
+    for (let k = 0; k < order.length; k++) if ((!named || named[order[k]!]) && pass(ix.list[order[k]!]!)) out[n++] = order[k]!
     hits = out.slice(0, n)
     ix.results.set(key, hits)
   }
@@ -142,10 +146,10 @@ export function tableItem(s: CachedSpecies, status: RegionStatus | null) {
   }
 }
 
-export function tablePage(ix: TableIndex, q: SpeciesTableQuery, statuses: Map<number, RegionStatus>) {
+export function tablePage(ix: TableIndex, q: SpeciesListQuery, statuses: Map<number, RegionStatus>, named?: Uint8Array) {
   const page = q.page ?? 1
   const pageSize = q.pageSize ?? SPECIES_PAGE_SIZE
-  const hits = tableMatches(ix, q, statuses)
+  const hits = tableMatches(ix, q, statuses, named)
   const items = []
   for (let k = (page - 1) * pageSize; k < Math.min(hits.length, page * pageSize); k++) {
     const s = ix.list[hits[k]!]!
@@ -166,6 +170,8 @@ export interface SearchIndex {
   /** where each name starts in `hay`: species i's scientific name is segment 2i, its common name 2i + 1 */
   starts: Int32Array
   results: Lru<string, Int32Array>
+  /** list positions of species with a name outside printable ASCII, where only the database knows its collation's `like` */
+  collated: number[]
 }
 
 export function buildSearchIndex(list: CachedSpecies[]): SearchIndex {
@@ -181,7 +187,25 @@ export function buildSearchIndex(list: CachedSpecies[]): SearchIndex {
     at += common[i]!.length + 1
     parts.push(sci[i]!, common[i]!)
   }
-  return { list, sci, common, hay: parts.join('\n'), starts, results: new Lru(256) }
+  const collated = list.flatMap((s, i) => (isPlainAscii(s.data.scientificName) && isPlainAscii(s.data.commonName ?? '') ? [] : [i]))
+  return { list, sci, common, hay: parts.join('\n'), starts, results: new Lru(256), collated }
+}
+
+/** Printable ASCII only: there the collation's `like '%term%'` is a case-insensitive substring, nothing more. */
+export function isPlainAscii(text: string) {
+  return /^[\x20-\x7e]*$/.test(text)
+}
+
+/**
+ * What `scientific_name like '%term%' or common_name like '%term%'` selects, for a printable-ASCII term: decided
+ * here for species with plain ASCII names (`named`, 1 per matching list position); the `collated` ones (accents,
+ * the hybrid sign …) are left for the database to decide, as its collation folds them.
+ */
+export function likeMatches(ix: SearchIndex, term: string): { named: Uint8Array; collated: number[] } {
+  const named = new Uint8Array(ix.list.length)
+  for (const i of nameHits(ix, term.toLowerCase())) named[i] = 1
+  for (const i of ix.collated) named[i] = 0
+  return { named, collated: ix.collated }
 }
 
 /** List positions whose scientific or common name contains the lower-case term, in list order. */

@@ -17,7 +17,7 @@ import {
 } from '#shared/schemas/species'
 import { REGIONS } from '#shared/utils/regions'
 import {
-  buildRegionFits, buildSearchIndex, buildTableIndex, rankFits, rankSwaps, searchPage, tablePage,
+  Lru, buildRegionFits, buildSearchIndex, buildTableIndex, isPlainAscii, likeMatches, rankFits, rankSwaps, searchPage, tablePage,
   type CachedSpecies, type FitConditions, type FitItem, type RegionFits, type SearchIndex, type TableIndex, type YardContext,
 } from './catalogue-index'
 
@@ -149,6 +149,7 @@ interface Catalogue {
   table: TableIndex
   search: SearchIndex
   fits: Map<string, Promise<RegionFits>>
+  likes: Lru<string, Promise<Uint8Array>>
 }
 
 let cache: Catalogue | null = null
@@ -194,7 +195,7 @@ async function buildCatalogue(forStamp: string): Promise<Catalogue> {
   }
   return {
     stamp: forStamp, list, byKey: new Map(list.map((s) => [s.key, s])), byId: new Map(list.map((s) => [s.id, s])), regions: new Map(),
-    table: buildTableIndex(list, nameRank, commonRank), search: buildSearchIndex(list), fits: new Map(),
+    table: buildTableIndex(list, nameRank, commonRank), search: buildSearchIndex(list), fits: new Map(), likes: new Lru(64),
   }
 }
 
@@ -292,20 +293,44 @@ export async function getSpeciesDetails(names: string[], region: string): Promis
 
 // ---------------------------------------------------------------------------------------------------------
 // The species table and search-as-you-type, from this instance's in-memory copy (catalogue-index.ts): sort
-// orders per column made once per copy, so a page is a filter over one precomputed order, cached per query
+// orders per column made once per copy, so a page is a filter over one precomputed order, cached per query;
+// SQL only for what needs the database's collation (names and terms beyond printable ASCII)
 
 export async function listSpecies(q: SpeciesListQuery) {
   const cat = await useCatalogue()
   const statuses = q.region ? await regionStatuses(cat, q.region) : new Map<number, RegionStatus>()
   if (q.q && (!q.sort || q.sort === 'relevance')) return searchPage(cat.search, q as SpeciesListQuery & { q: string }, statuses)
   if (!q.q) return tablePage(cat.table, q, statuses)
+  if (isPlainAscii(q.q)) return tablePage(cat.table, q, statuses, await likeNamed(cat, q.q))
   return listSpeciesSql(q)
 }
 
 /**
- * A search term with a column sort stays in SQL: `like` there matches by the database's collation (accents and
- * case folded, as the table's users expect), which the plain lower-case substring of search-as-you-type does not.
+ * Which species the table's name filter (`like '%term%'` by the database's collation) keeps, per list position:
+ * plain ASCII names are matched in memory; the few others are asked of the database, by id, once per term and copy.
  */
+function likeNamed(cat: Catalogue, term: string): Promise<Uint8Array> {
+  let p = cat.likes.get(term)
+  if (!p) {
+    p = (async () => {
+      const { named, collated } = likeMatches(cat.search, term)
+      if (collated.length) {
+        const s = catalogueSpecies
+        const pattern = `%${term.replace(/[\\%_]/g, (c) => `\\${c}`)}%`
+        const position = new Map(collated.map((i) => [cat.list[i]!.id, i]))
+        const rows = await useDb().select({ id: s.id }).from(s)
+          .where(and(inArray(s.id, [...position.keys()]), or(like(s.scientificName, pattern), like(s.commonName, pattern))))
+        for (const r of rows) named[position.get(r.id)!] = 1
+      }
+      return named
+    })()
+    p.catch(() => cat.likes.delete(term))
+    cat.likes.set(term, p)
+  }
+  return p
+}
+
+/** A search term that is not printable ASCII, with a column sort: all in SQL, where the collation folds accents. */
 async function listSpeciesSql(q: SpeciesListQuery) {
   const db = useDb()
   const page = q.page ?? 1

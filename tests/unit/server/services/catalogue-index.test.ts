@@ -6,7 +6,7 @@ import { readFileSync } from 'node:fs'
 import { gunzipSync } from 'node:zlib'
 import { join } from 'node:path'
 import {
-  Lru, buildRegionFits, buildSearchIndex, buildTableIndex, nameHits, passes, rankFits, rankSwaps, scoreFit, fitItem,
+  Lru, buildRegionFits, buildSearchIndex, buildTableIndex, isPlainAscii, likeMatches, nameHits, passes, rankFits, rankSwaps, scoreFit, fitItem,
   searchPage, tablePage, type CachedSpecies, type FitConditions, type FitItem, type SpeciesSearchQuery, type SpeciesTableQuery,
   type TableSort, type YardContext,
 } from '../../../../server/services/catalogue-index'
@@ -43,12 +43,12 @@ const commonRank = denseRanks(list.map((s) => s.data.commonName))
 // the straightforward table: the SQL WHERE and ORDER BY written out as filters and key lists over every species
 const STATUS_WORDS = ['absent', 'introduced', 'invasive', 'native', 'nativeAndIntroduced']
 const LAYER_ENUM: Layer[] = ['tree', 'shrub', 'ground']
-function plainTable(q: SpeciesTableQuery) {
+function plainTable(q: SpeciesTableQuery, named?: (s: CachedSpecies) => boolean) {
   const statuses = statusesOf(q.region)
   const status = (i: number) => statuses.get(list[i]!.id) ?? 'absent'
   const rows = list.map((_, i) => i).filter((i) => {
     const d = list[i]!.data
-    return (!q.layer || d.layer === q.layer) && (!q.sun || d.sun.join(',').split(',').includes(q.sun)) && (!q.moisture || d.moisture.includes(q.moisture))
+    return (!named || named(list[i]!)) && (!q.layer || d.layer === q.layer) && (!q.sun || d.sun.join(',').split(',').includes(q.sun)) && (!q.moisture || d.moisture.includes(q.moisture))
       && (!q.soil || d.soil.includes(q.soil)) && (!q.hasFacts || d.hasCharacteristics) && (!q.status || status(i) === q.status)
   })
   const dir = q.dir === 'desc' ? -1 : 1
@@ -157,6 +157,35 @@ describe('search as you type from the joined names', () => {
     const across = `${s.data.scientificName.slice(-2)}${s.data.commonName!.slice(0, 2)}`.toLowerCase()
     const want = list.flatMap((x, i) => (x.data.scientificName.toLowerCase().includes(across) || (x.data.commonName ?? '').toLowerCase().includes(across) ? [i] : []))
     expect(nameHits(search, across)).toEqual(want)
+  })
+})
+
+describe('the table\'s name filter for a printable-ASCII term', () => {
+  const search = buildSearchIndex(list)
+  const table = buildTableIndex(list, nameRank, commonRank)
+  it('matches plain ASCII names case-insensitively and leaves every other name to the database', () => {
+    const other = list.flatMap((s, i) => (/[^\x20-\x7e]/.test(s.data.scientificName + (s.data.commonName ?? '')) ? [i] : []))
+    // the committed catalogue has hybrid names (×Agropogon …) and accented common names (Gaspé …)
+    expect(other.length).toBeGreaterThan(0)
+    for (const term of ['milk', 'ASCLEP', 'agropogon', 'pe', "'s", 'o-', 'zzzz']) {
+      expect(isPlainAscii(term)).toBe(true)
+      const { named, collated } = likeMatches(search, term)
+      expect(collated).toEqual(other)
+      const t = term.toLowerCase()
+      const want = list.map((s, i) => Number(!other.includes(i) && (s.data.scientificName.toLowerCase().includes(t) || (s.data.commonName ?? '').toLowerCase().includes(t))))
+      expect([...named], term).toEqual(want)
+    }
+    expect(isPlainAscii('é')).toBe(false)
+    expect(isPlainAscii('a\u0001')).toBe(false)
+  })
+  it('pages the filtered table like filtering and sorting everything', { timeout: 60_000 }, () => {
+    for (const term of ['milk', 'oak', 'a']) for (const sort of ['name', 'common', 'height', 'status'] as TableSort[]) for (const dir of ['asc', 'desc'] as const) {
+      const { named } = likeMatches(search, term)
+      const q = { region: 'US-OH', q: term, sort, dir, page: 2, pageSize: 20 }
+      const got = tablePage(table, q, statusesOf('US-OH'), named)
+      const want = plainTable(q, (s) => named[s.id - 1] === 1)
+      expect({ names: got.items.map((i) => i.scientificName), total: got.total, statuses: got.items.map((i) => i.status) }, JSON.stringify(q)).toEqual(want)
+    }
   })
 })
 
