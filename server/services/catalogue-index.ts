@@ -196,16 +196,98 @@ export function isPlainAscii(text: string) {
   return /^[\x20-\x7e]*$/.test(text)
 }
 
+export const PRINTABLE_ASCII = Array.from({ length: 95 }, (_, i) => String.fromCharCode(32 + i))
+
 /**
- * What `scientific_name like '%term%' or common_name like '%term%'` selects, for a printable-ASCII term: decided
- * here for species with plain ASCII names (`named`, 1 per matching list position); the `collated` ones (accents,
- * the hybrid sign …) are left for the database to decide, as its collation folds them.
+ * For each character, the printable-ASCII characters it matches as a one-character `like` pattern in the
+ * database's collation (asked of the database once per copy). `like` compares one character with one character,
+ * so with this table `like '%term%'` can be decided here for names beyond ASCII too.
  */
-export function likeMatches(ix: SearchIndex, term: string): { named: Uint8Array; collated: number[] } {
+export type LikeTable = Map<string, Set<string>>
+
+/** The characters beyond printable ASCII in the collated names: what the like table must cover. */
+export function collatedChars(ix: SearchIndex): string[] {
+  const chars = new Set<string>()
+  for (const i of ix.collated) for (const c of ix.list[i]!.data.scientificName + (ix.list[i]!.data.commonName ?? '')) if (!isPlainAscii(c)) chars.add(c)
+  return [...chars]
+}
+
+/** Whether the database's table gives printable ASCII exactly letter-case folding (what matching plain names here assumes). */
+export function likeTableFoldsAsciiCase(t: LikeTable): boolean {
+  return PRINTABLE_ASCII.every((c) => {
+    const want = new Set([c, c.toLowerCase(), c.toUpperCase()])
+    const got = t.get(c)
+    return !!got && got.size === want.size && [...want].every((x) => got.has(x))
+  })
+}
+
+/** `name like '%term%'` for a printable-ASCII term, one character against one; null when a character is not in the table. */
+export function likeIncludes(name: string, term: string, t: LikeTable): boolean | null {
+  const n = Array.from(name)
+  for (const c of n) if (!isPlainAscii(c) && !t.has(c)) return null
+  const lower = term.toLowerCase()
+  const same = (c: string, k: number) => (isPlainAscii(c) ? c.toLowerCase() === lower[k] : t.get(c)!.has(term[k]!))
+  outer: for (let i = 0; i + term.length <= n.length; i++) {
+    for (let k = 0; k < term.length; k++) if (!same(n[i + k]!, k)) continue outer
+    return true
+  }
+  return false
+}
+
+/**
+ * A name folded for `like` against a lower-case printable-ASCII term: ASCII lower-cased, a character beyond it
+ * replaced by the one lower-case character it matches, or by a newline (no term has one) when it matches none;
+ * null when some character matches several or is not in the table (then likeIncludes decides, or the database).
+ */
+export function foldForLike(name: string, t: LikeTable): string | null {
+  let out = ''
+  for (const c of name) {
+    if (isPlainAscii(c)) { out += c.toLowerCase(); continue }
+    const matches = t.get(c)
+    if (!matches) return null
+    const lower = new Set([...matches].map((x) => x.toLowerCase()))
+    if (lower.size > 1) return null
+    out += lower.size ? [...lower][0] : '\n'
+  }
+  return out
+}
+
+// folds of the collated names, made once per search index and like table
+const folded = new WeakMap<LikeTable, WeakMap<SearchIndex, { sci: (string | null)[]; common: (string | null)[] }>>()
+function likeFolds(ix: SearchIndex, t: LikeTable) {
+  let perIndex = folded.get(t)
+  if (!perIndex) folded.set(t, perIndex = new WeakMap())
+  let f = perIndex.get(ix)
+  if (!f) {
+    f = { sci: ix.collated.map((i) => foldForLike(ix.list[i]!.data.scientificName, t)), common: ix.collated.map((i) => foldForLike(ix.list[i]!.data.commonName ?? '', t)) }
+    perIndex.set(ix, f)
+  }
+  return f
+}
+
+/**
+ * What `scientific_name like '%term%' or common_name like '%term%'` selects, for a printable-ASCII term, as 1 per
+ * matching list position: plain ASCII names by case-insensitive substring, the others (accents, the hybrid sign …)
+ * through the database's like table; `collated` lists those still left for the database (no table, or a character
+ * the table lacks).
+ */
+export function likeMatches(ix: SearchIndex, term: string, table?: LikeTable | null): { named: Uint8Array; collated: number[] } {
   const named = new Uint8Array(ix.list.length)
   for (const i of nameHits(ix, term.toLowerCase())) named[i] = 1
-  for (const i of ix.collated) named[i] = 0
-  return { named, collated: ix.collated }
+  const collated: number[] = []
+  const folds = table ? likeFolds(ix, table) : null
+  const lower = term.toLowerCase()
+  ix.collated.forEach((i, k) => {
+    named[i] = 0
+    const d = ix.list[i]!.data
+    const sciFold = folds?.sci[k]
+    const commonFold = folds?.common[k]
+    const sci = !table ? null : typeof sciFold === 'string' ? sciFold.includes(lower) : likeIncludes(d.scientificName, term, table)
+    const common = d.commonName === null ? false : !table ? null : typeof commonFold === 'string' ? commonFold.includes(lower) : likeIncludes(d.commonName, term, table)
+    if (sci === true || common === true) named[i] = 1
+    else if (sci === null || common === null) collated.push(i)
+  })
+  return { named, collated }
 }
 
 /** List positions whose scientific or common name contains the lower-case term, in list order. */

@@ -3,7 +3,7 @@
 // the score engine and the seed plan, the species table, good fits and swaps, and CSV import/export.
 import { gunzipSync } from 'node:zlib'
 import type { H3Event } from 'h3'
-import { and, asc, desc, eq, inArray, like, or, sql, type SQL } from 'drizzle-orm'
+import { and, asc, desc, eq, like, or, sql, type SQL } from 'drizzle-orm'
 import { format as formatSql } from 'mysql2'
 import { appMeta, catalogueOverrides, catalogueRegions, catalogueSpecies, type CatalogueSpeciesData } from '../database/schema'
 import type { Layer, RegionStatus, SpeciesDetails, SpeciesFacts } from '#shared/types/species'
@@ -17,7 +17,8 @@ import {
 } from '#shared/schemas/species'
 import { REGIONS } from '#shared/utils/regions'
 import {
-  Lru, buildRegionFits, buildSearchIndex, buildTableIndex, isPlainAscii, likeMatches, rankFits, rankSwaps, searchPage, tablePage,
+  Lru, PRINTABLE_ASCII, buildRegionFits, buildSearchIndex, buildTableIndex, collatedChars, isPlainAscii, likeMatches, likeTableFoldsAsciiCase,
+  rankFits, rankSwaps, searchPage, tablePage, type LikeTable,
   type CachedSpecies, type FitConditions, type FitItem, type RegionFits, type SearchIndex, type TableIndex, type YardContext,
 } from './catalogue-index'
 
@@ -150,6 +151,7 @@ interface Catalogue {
   search: SearchIndex
   fits: Map<string, Promise<RegionFits>>
   likes: Lru<string, Promise<Uint8Array>>
+  likeTable?: Promise<LikeTable | null>
 }
 
 let cache: Catalogue | null = null
@@ -313,14 +315,14 @@ function likeNamed(cat: Catalogue, term: string): Promise<Uint8Array> {
   let p = cat.likes.get(term)
   if (!p) {
     p = (async () => {
-      const { named, collated } = likeMatches(cat.search, term)
+      cat.likeTable ??= likeTable(cat)
+      const { named, collated } = likeMatches(cat.search, term, await cat.likeTable)
       if (collated.length) {
         const s = catalogueSpecies
         const pattern = `%${term.replace(/[\\%_]/g, (c) => `\\${c}`)}%`
+        const [rows] = await useDb().execute(sql`select ${s.id} as id from ${s} where ${s.id} in (${sql.raw(collated.map((i) => cat.list[i]!.id).join(','))}) and (${s.scientificName} like ${pattern} or ${s.commonName} like ${pattern})`) as unknown as [{ id: number }[]]
         const position = new Map(collated.map((i) => [cat.list[i]!.id, i]))
-        const rows = await useDb().select({ id: s.id }).from(s)
-          .where(and(inArray(s.id, [...position.keys()]), or(like(s.scientificName, pattern), like(s.commonName, pattern))))
-        for (const r of rows) named[position.get(r.id)!] = 1
+        for (const r of rows) named[position.get(Number(r.id))!] = 1
       }
       return named
     })()
@@ -328,6 +330,32 @@ function likeNamed(cat: Catalogue, term: string): Promise<Uint8Array> {
     cat.likes.set(term, p)
   }
   return p
+}
+
+/**
+ * Asks the database, once per copy, which printable-ASCII characters each character of the names beyond ASCII
+ * matches with `like` in the name columns' collation; null (all such names left to the database) when the columns
+ * differ in collation or plain ASCII does not fold exactly by letter case there.
+ */
+async function likeTable(cat: Catalogue): Promise<LikeTable | null> {
+  const db = useDb()
+  const [cols] = await db.execute(sql`select collation_name as name from information_schema.columns where table_schema = database() and table_name = 'catalogue_species' and column_name in ('scientific_name', 'common_name')`) as unknown as [{ name: string }[]]
+  const collation = cols[0]?.name
+  if (!collation || !/^\w+$/.test(collation) || cols.some((c) => c.name !== collation)) return null
+  const chars = [...PRINTABLE_ASCII, ...collatedChars(cat.search)]
+  const patterns = PRINTABLE_ASCII.map((c) => ({ c, p: /[\\%_]/.test(c) ? `\\${c}` : c }))
+  const col = (path: string, len: number) => sql.raw(`varchar(${len}) character set utf8mb4 collate ${collation} path '${path}'`)
+  const [rows] = await db.execute(sql`select c.ch as ch, a.c as a, length(weight_string(c.ch)) as w
+    from json_table(${JSON.stringify(chars)}, '$[*]' columns(ch ${col('$', 4)})) c
+    left join json_table(${JSON.stringify(patterns)}, '$[*]' columns(c ${col('$.c', 2)}, p ${col('$.p', 4)})) a on c.ch like a.p`) as unknown as [{ ch: string; a: string | null; w: number }[]]
+  const table: LikeTable = new Map()
+  for (const r of rows) {
+    // a character beyond ASCII with no weight of its own is left out: names holding one stay with the database
+    if (!Number(r.w) && !isPlainAscii(r.ch)) continue
+    if (!table.has(r.ch)) table.set(r.ch, new Set())
+    if (r.a !== null) table.get(r.ch)!.add(r.a)
+  }
+  return likeTableFoldsAsciiCase(table) ? table : null
 }
 
 /** A search term that is not printable ASCII, with a column sort: all in SQL, where the collation folds accents. */

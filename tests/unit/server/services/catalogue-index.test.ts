@@ -6,7 +6,7 @@ import { readFileSync } from 'node:fs'
 import { gunzipSync } from 'node:zlib'
 import { join } from 'node:path'
 import {
-  Lru, buildRegionFits, buildSearchIndex, buildTableIndex, isPlainAscii, likeMatches, nameHits, passes, rankFits, rankSwaps, scoreFit, fitItem,
+  Lru, buildRegionFits, buildSearchIndex, buildTableIndex, collatedChars, foldForLike, isPlainAscii, likeIncludes, likeMatches, likeTableFoldsAsciiCase, nameHits, passes, PRINTABLE_ASCII, rankFits, rankSwaps, scoreFit, fitItem,
   searchPage, tablePage, type CachedSpecies, type FitConditions, type FitItem, type SpeciesSearchQuery, type SpeciesTableQuery,
   type TableSort, type YardContext,
 } from '../../../../server/services/catalogue-index'
@@ -177,6 +177,33 @@ describe('the table\'s name filter for a printable-ASCII term', () => {
     }
     expect(isPlainAscii('é')).toBe(false)
     expect(isPlainAscii('a\u0001')).toBe(false)
+  })
+  it('decides names beyond ASCII through the database\'s like table, one character against one', () => {
+    // stands in for the database's answer (utf8mb4_unicode_ci: é matches e and E; × and ‘ match no ASCII character)
+    const table = new Map<string, Set<string>>([...PRINTABLE_ASCII.map((c) => [c, new Set([c, c.toLowerCase(), c.toUpperCase()])] as const), ['é', new Set(['e', 'E'])], ['×', new Set()], ['‘', new Set()]])
+    expect(likeTableFoldsAsciiCase(table)).toBe(true)
+    expect(collatedChars(search).sort()).toEqual(['×', '‘', 'é'].sort())
+    expect(likeIncludes('Gaspé Peninsula arrowgrass', 'SPE P', table)).toBe(true)
+    expect(likeIncludes('×Agropogon littoralis', 'agro', table)).toBe(true)
+    expect(likeIncludes('×Agropogon littoralis', 'xagro', table)).toBe(false)
+    expect(likeIncludes('‘ilima', "'i", table)).toBe(false)
+    expect(likeIncludes('Gaspé', 'gaspe', new Map())).toBeNull()
+    expect(foldForLike('×Agropogon Gaspé', table)).toBe('\nagropogon gaspe')
+    expect(foldForLike('Gaspé', new Map([['é', new Set(['e', 'a'])]]))).toBeNull()
+    // a character matching two letters is decided character by character
+    const two = new Map([...table, ['é', new Set(['e', 'a'])]])
+    expect(likeIncludes('Gaspé', 'aspa', two)).toBe(true)
+    expect(likeMatches(search, 'gaspa', two).named[list.findIndex((s) => s.data.commonName === 'Gaspé Peninsula arrowgrass')]).toBe(1)
+    for (const term of ['gasp', 'agropogon', 'pe', 'ilima', 'zzzz']) {
+      const { named, collated } = likeMatches(search, term, table)
+      expect(collated).toEqual([])
+      const want = list.map((s) => Number([s.data.scientificName, s.data.commonName ?? ''].some((n) => n.toLowerCase().replace(/é/g, 'e').includes(term))))
+      expect([...named], term).toEqual(want)
+    }
+    // a character the table lacks leaves its names to the database
+    const partial = new Map(table)
+    partial.delete('é')
+    expect(likeMatches(search, 'arrowgrass', partial).collated.map((i) => list[i]!.data.commonName)).toEqual(list.filter((s) => s.data.commonName?.includes('é')).map((s) => s.data.commonName))
   })
   it('pages the filtered table like filtering and sorting everything', { timeout: 60_000 }, () => {
     for (const term of ['milk', 'oak', 'a']) for (const sort of ['name', 'common', 'height', 'status'] as TableSort[]) for (const dir of ['asc', 'desc'] as const) {
