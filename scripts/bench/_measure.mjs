@@ -13,13 +13,17 @@ function median(xs) {
   return s[Math.floor(s.length / 2)]
 }
 
-/** Measures one request shape: `make()` returns [path, init]. */
-export async function measure(name, make, { requests = 200, warmup = 20, concurrency = 4, seconds = 20 } = {}) {
+/**
+ * Measures one request shape: `make()` returns [path, init]; `after(status, bytes)`, when given, sees each answer
+ * outside the timed part (a case that chains requests reads what it needs there).
+ */
+export async function measure(name, make, { requests = 200, warmup = 20, concurrency = 4, seconds = 20, after } = {}) {
   for (let i = 0; i < warmup; i++) {
     const [p, init] = make()
     const r = await fetch(BASE_URL + p, init)
-    await r.arrayBuffer()
-    if (r.status >= 400) throw new Error(`${name}: ${r.status} ${await r.text?.()}`)
+    const bytes = await r.arrayBuffer()
+    if (r.status >= 400) throw new Error(`${name}: ${r.status} ${Buffer.from(bytes).toString()}`)
+    after?.(r.status, bytes)
   }
   const times = []
   const until = Date.now() + seconds * 1000
@@ -27,8 +31,10 @@ export async function measure(name, make, { requests = 200, warmup = 20, concurr
     const [p, init] = make()
     const t = performance.now()
     const r = await fetch(BASE_URL + p, init)
-    await r.arrayBuffer()
+    const bytes = await r.arrayBuffer()
     times.push(performance.now() - t)
+    if (r.status >= 400) throw new Error(`${name}: ${r.status} ${Buffer.from(bytes).toString()}`)
+    after?.(r.status, bytes)
   }
   const burst = Math.min(requests, 200)
   let done = 0
@@ -38,7 +44,7 @@ export async function measure(name, make, { requests = 200, warmup = 20, concurr
       done++
       const [p, init] = make()
       const r = await fetch(BASE_URL + p, init)
-      await r.arrayBuffer()
+      after?.(r.status, await r.arrayBuffer())
     }
   }))
   const rps = burst / ((performance.now() - t0) / 1000)

@@ -5,6 +5,6 @@ import { scoreForRequest } from '../services/score-basis'
 
 export default defineEventHandler(async (event) => {
   const request = await readBodyWith(event, scoreRequest)
-  const user = await requireUser(event)
-  return scoreForRequest(user.id, request)
+  const userId = await requireSignedIn(event)
+  return scoreForRequest(userId, request)
 })

@@ -8,7 +8,7 @@ import { clip, multiPolygonArea, roomiestPoint, visibleGeometry, ringInLot, type
 import type { Ring } from '#shared/utils/polygon'
 import { formatArea, type Units } from '#shared/utils/units'
 import { regionName } from '#shared/utils/regions'
-import { TYPICAL_SIZE, contribution, groundCutters, measureYard, round3, type MeasuredYard, type PlantingMeasure } from './scoring'
+import { TYPICAL_SIZE, contribution, groundCutters, measureYard, round3, tallyYard, type MeasuredYard, type PlantingMeasure, type YardTally } from './scoring'
 
 const EPS = 1e-9
 const SHARES: ShareKind[] = ['count', 'area', 'volume']
@@ -19,11 +19,13 @@ export function invasiveOrder(plantings: PlantingMeasure[], share: ShareKind): P
   const groups = new Map<string, PlantingMeasure[]>()
   for (const p of plantings) {
     if (p.status !== 'invasive' || contribution(p, share) <= 0) continue
-    const key = p.name.toLowerCase()
-    groups.set(key, [...(groups.get(key) ?? []), p])
+    const key = p.nameKey
+    const group = groups.get(key)
+    if (group) group.push(p)
+    else groups.set(key, [p])
   }
-  const total = (g: PlantingMeasure[]) => round3(g.reduce((sum, p) => sum + contribution(p, share), 0))
-  return [...groups.values()].sort((a, b) => total(b) - total(a) || a[0]!.index - b[0]!.index)
+  const totals = new Map([...groups.values()].map((g) => [g, round3(g.reduce((sum, p) => sum + contribution(p, share), 0))]))
+  return [...groups.values()].sort((a, b) => totals.get(b)! - totals.get(a)! || a[0]!.index - b[0]!.index)
 }
 
 /** Lawn that can be converted: non-native lawn plantings with visible area, largest first. */
@@ -32,10 +34,19 @@ export function lawnOrder(plantings: PlantingMeasure[], skip: Set<number> = new 
     .sort((a, b) => round3(b.area) - round3(a.area) || a.index - b.index)
 }
 
+// the lot's roomiest point, once per lot shape (a re-score after an edit keeps the same shape for the same lot)
+const roomiestByLot = new WeakMap<Shape, ReturnType<typeof roomiestPoint>>()
+function roomiest(lot: Shape | null): ReturnType<typeof roomiestPoint> {
+  if (!lot) return roomiestPoint(lot)
+  let r = roomiestByLot.get(lot)
+  if (!r) roomiestByLot.set(lot, (r = roomiestPoint(lot)))
+  return r
+}
+
 /** The layer of the plants an add-plants move proposes: small plants for the count; for cover and volume the largest that fits the lot. */
 export function addPlantsLayer(share: ShareKind, lot: Shape | null): Layer {
   if (share === 'count') return 'ground'
-  const room = roomiestPoint(lot).clearance
+  const room = roomiest(lot).clearance
   return (['tree', 'shrub', 'ground'] as Layer[]).find((l) => TYPICAL_SIZE[l].spread / 2 <= room) ?? 'ground'
 }
 
@@ -51,23 +62,18 @@ const ceilTenth = (x: number) => Math.ceil(x * 10 - 1e-9) / 10
 // metres first (the amount's unit), the yard's own units beside when it is drawn in feet
 const areaWords = (m2: number, units: Units) => `${formatArea(m2, 'm', m2 < 10 ? 1 : 0)}${units === 'ft' ? ` (${formatArea(m2, 'ft')})` : ''}`
 
-export function movesToGoal(measured: MeasuredYard, goal: number): { moves: Move[]; warnings: ScoreWarning[] } {
+export function movesToGoal(measured: MeasuredYard, goal: number, tally: YardTally = tallyYard(measured.plantings)): { moves: Move[]; warnings: ScoreWarning[] } {
   const moves: Move[] = []
   const warnings: ScoreWarning[] = []
   const units: Units = measured.doc.units ?? 'm'
   const where = measured.region ? regionName(measured.region) : 'this region'
   for (const share of SHARES) {
-    let native = 0
-    let total = 0
-    for (const p of measured.plantings) {
-      const c = contribution(p, share)
-      total += c
-      if (p.status === 'native') native += c
-    }
+    let native = tally.native[share]
+    const total = tally.total[share]
     // an empty share has nothing to close; a share at the goal meets it
     if (total === 0 || native >= goal * total - EPS * Math.max(1, total)) continue
     const replaced = new Set<number>()
-    for (const group of invasiveOrder(measured.plantings, share)) {
+    for (const group of invasiveOrder(tally.invasive, share)) {
       if (native >= goal * total - EPS * total) break
       for (const p of group) { native += contribution(p, share); replaced.add(p.index) }
       const { name, layer } = group[0]!
@@ -88,7 +94,7 @@ export function movesToGoal(measured: MeasuredYard, goal: number): { moves: Move
     if (share !== 'count') {
       let need = gap
       let amount = 0
-      for (const lawn of lawnOrder(measured.plantings, replaced)) {
+      for (const lawn of lawnOrder(tally.lawn, replaced)) {
         const rate = lawnRate(share, lawn, goal)
         const take = Math.min(lawn.area, need / rate)
         amount += take
@@ -154,7 +160,7 @@ export function applyMoves(doc: YardDocument, facts: Map<string, SpeciesFacts>, 
   if (add) {
     const layer = addPlantsLayer(share, measured.lot)
     const size = TYPICAL_SIZE[layer]
-    const { point, clearance } = roomiestPoint(measured.lot)
+    const { point, clearance } = roomiest(measured.lot)
     // a clump of c plants is a disc of radius r·√c: as many per clump as fit inside the clearance
     const perClump = Math.max(1, Math.floor(Math.min(1e6, (clearance / (size.spread / 2)) ** 2) * (1 - 1e-9)))
     let left = add.amount

@@ -8,13 +8,13 @@ import { randomBytes } from 'node:crypto'
 import type { YardDocument } from '#shared/schemas/yard-document'
 import type { Score, ScoreRequest, ScoredPlanting, ScoreUpdate, ScoreWithBasis } from '#shared/schemas/score'
 import { applyYardChanges } from '#shared/utils/yard-changes'
-import { scoreDocument, type MeasureMemo } from './scoring'
+import { newMeasureMemo, scoreDocument, type MeasureMemo } from './scoring'
 
 interface Basis {
   userId: number
   doc: YardDocument
   memo: MeasureMemo
-  lines: Map<string, ScoredPlanting>
+  lines: ScoredPlanting[]
   until: number
 }
 
@@ -24,27 +24,56 @@ const BASIS_TTL_MS = 10 * 60_000
 const PER_USER = 6
 const MAX_BASES = 500
 const bases = new Map<string, Basis>()
+const byUser = new Map<number, string[]>()
+
+function forget(token: string) {
+  const b = bases.get(token)
+  if (!b) return
+  bases.delete(token)
+  const mine = byUser.get(b.userId)
+  if (mine) {
+    mine.splice(mine.indexOf(token), 1)
+    if (!mine.length) byUser.delete(b.userId)
+  }
+}
 
 function remember(userId: number, doc: YardDocument, memo: MeasureMemo, score: Score): string {
   const token = randomBytes(18).toString('base64url')
   const now = Date.now()
-  let mine = 0
-  // Map order is insertion order, so the first entries are the oldest
-  for (const [key, b] of [...bases].reverse()) {
-    if (b.until < now || (b.userId === userId && ++mine >= PER_USER)) bases.delete(key)
-  }
-  while (bases.size >= MAX_BASES) bases.delete(bases.keys().next().value!)
-  bases.set(token, { userId, doc, memo, lines: new Map(score.plantings.map((p) => [p.id, p])), until: now + BASIS_TTL_MS })
+  // every basis lives as long, so the Map's insertion order is also the order they expire in
+  for (const [key, b] of bases) { if (b.until >= now) break; forget(key) }
+  const mine = byUser.get(userId) ?? []
+  while (mine.length >= PER_USER) forget(mine[0]!)
+  while (bases.size >= MAX_BASES) forget(bases.keys().next().value!)
+  bases.set(token, { userId, doc, memo, lines: score.plantings, until: now + BASIS_TTL_MS })
+  mine.push(token)
+  byUser.set(userId, mine)
   return token
 }
 
-const sameLine = (a: ScoredPlanting, b: ScoredPlanting) =>
-  a.status === b.status && a.layer === b.layer && a.count === b.count && a.area === b.area && a.volume === b.volume && a.cultivar === b.cultivar
+const sameLine = (a: ScoredPlanting, b: ScoredPlanting) => a === b
+  || (a.status === b.status && a.layer === b.layer && a.count === b.count && a.area === b.area && a.volume === b.volume && a.cultivar === b.cultivar)
+
+/** Lines of `now` that are new or differ from `before`, and ids in `before` that `now` no longer has. */
+export function changedLines(before: ScoredPlanting[], now: ScoredPlanting[]): { changed: ScoredPlanting[]; removed: string[] } {
+  const changed: ScoredPlanting[] = []
+  // most edits keep every line in its place; a lookup by id is built only once the lists stop lining up
+  let byId: Map<string, ScoredPlanting> | null = null
+  for (let i = 0; i < now.length; i++) {
+    const line = now[i]!
+    let was: ScoredPlanting | undefined = before[i]
+    if (was?.id !== line.id) was = (byId ??= new Map(before.map((l) => [l.id, l]))).get(line.id)
+    if (!was || !sameLine(was, line)) changed.push(line)
+  }
+  if (!byId && before.length === now.length) return { changed, removed: [] }
+  const ids = new Set(now.map((l) => l.id))
+  return { changed, removed: before.filter((l) => !ids.has(l.id)).map((l) => l.id) }
+}
 
 /** The score for a request to POST /api/score by `userId`: of a whole document, or of changes to a basis. */
 export async function scoreForRequest(userId: number, request: ScoreRequest): Promise<ScoreWithBasis | ScoreUpdate> {
   if (request.kind === 'document') {
-    const memo: MeasureMemo = new WeakMap()
+    const memo: MeasureMemo = newMeasureMemo()
     const score = await scoreDocument(request.doc, undefined, memo)
     return { ...score, basis: remember(userId, request.doc, memo, score) }
   }
@@ -55,9 +84,7 @@ export async function scoreForRequest(userId: number, request: ScoreRequest): Pr
   const { doc, issues } = applyYardChanges(basis.doc, request.changes)
   if (issues.length) badRequest(Object.fromEntries(issues.map((i) => [i.path.join('.'), i.message])))
   const score = await scoreDocument(doc, undefined, basis.memo)
-  const changed = score.plantings.filter((line) => { const was = basis.lines.get(line.id); return !was || !sameLine(was, line) })
-  const ids = new Set(score.plantings.map((p) => p.id))
-  const removedPlantings = [...basis.lines.keys()].filter((id) => !ids.has(id))
+  const { changed, removed } = changedLines(basis.lines, score.plantings)
   const token = remember(userId, doc, basis.memo, score)
-  return { ...score, plantings: changed, removedPlantings, since: request.basis, basis: token }
+  return { ...score, plantings: changed, removedPlantings: removed, since: request.basis, basis: token }
 }

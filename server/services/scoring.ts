@@ -2,7 +2,7 @@
 // `scoreYard` is pure (the facts and goal are passed in); `scoreDocument` loads them for a saved or posted yard.
 import { isAreaPlanting, type YardDocument, type YardPlanting } from '#shared/schemas/yard-document'
 import type { Layer, PlantingStatus, SpeciesFacts } from '#shared/types/species'
-import type { Score, ScoreWarning, Shares, ShareKind, Totals } from '#shared/schemas/score'
+import type { Score, ScoredPlanting, ScoreWarning, Shares, ShareKind, Totals } from '#shared/schemas/score'
 import { circleAreaInLot, cutterOf, visibleArea, ringInLot, type Cutter, type Shape } from '#shared/utils/geometry'
 import type { Ring } from '#shared/utils/polygon'
 import { pointInRing } from '#shared/utils/polygon'
@@ -25,6 +25,8 @@ export interface PlantingMeasure {
   index: number
   id: string
   name: string
+  /** the name lower-cased: plantings of one species are grouped by it */
+  nameKey: string
   status: PlantingStatus
   layer: Layer
   isArea: boolean
@@ -44,6 +46,8 @@ export interface MeasuredYard {
   lot: Shape | null
   plantings: PlantingMeasure[]
   warnings: ScoreWarning[]
+  /** with a memo: each planting's remembered result, by index */
+  remembered?: Array<Remembered | undefined>
 }
 
 export const factsKey = (species: string) => species.trim().toLowerCase()
@@ -90,12 +94,14 @@ export function lotShape(doc: YardDocument): Shape | null {
 
 /** What the engine worked out for one planting object, with everything the answer depended on. */
 interface Remembered {
+  key: string | null
   facts: SpeciesFacts | undefined
   lot: Shape | null
   region: string | null
   above: Cutter[] | undefined
   measure: PlantingMeasure
   warnings: ScoreWarning[]
+  line?: ScoredPlanting
 }
 
 /**
@@ -104,13 +110,30 @@ interface Remembered {
  * the planting, its species facts, the lot, the region and — for the ground layer — every shape drawn above it
  * are the same, so the answer is exactly what a fresh computation gives.
  */
-export type MeasureMemo = WeakMap<YardPlanting, Remembered>
+export interface MeasureMemo {
+  plantings: WeakMap<YardPlanting, Remembered>
+  /** one object per species while its facts stay equal, so a planting's facts are compared by identity */
+  facts: Map<string, SpeciesFacts>
+}
+
+export const newMeasureMemo = (): MeasureMemo => ({ plantings: new WeakMap(), facts: new Map() })
 
 function sameFacts(a: SpeciesFacts | undefined, b: SpeciesFacts | undefined): boolean {
   if (a === b) return true
   if (!a || !b) return false
   return a.status === b.status && a.layer === b.layer && a.spread === b.spread && a.height === b.height && a.spacing === b.spacing
     && a.lawn === b.lawn && a.scientificName === b.scientificName && a.commonName === b.commonName && a.estimated.join() === b.estimated.join()
+}
+
+/** `facts` with each entry replaced by the memo's equal object, when it has one. */
+function canonicalFacts(facts: Map<string, SpeciesFacts>, memo: MeasureMemo): Map<string, SpeciesFacts> {
+  const out = new Map<string, SpeciesFacts>()
+  for (const [key, f] of facts) {
+    const known = memo.facts.get(key)
+    if (known && sameFacts(known, f)) out.set(key, known)
+    else { memo.facts.set(key, f); out.set(key, f) }
+  }
+  return out
 }
 
 function sameCutters(a: Cutter[] | undefined, b: Cutter[] | undefined): boolean {
@@ -128,25 +151,41 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
   const lot = lotShape(doc)
   const where = region ? regionName(region) : 'this region'
 
-  const factsOf = doc.plantings.map((p) => (p.species ? facts.get(factsKey(p.species)) : undefined))
-  const layers = doc.plantings.map((p, i) => factsOf[i]?.layer ?? layerBySize(p))
+  if (memo) facts = canonicalFacts(facts, memo)
+  const n = doc.plantings.length
+  const known: Array<Remembered | undefined> = new Array(n)
+  const keys: Array<string | null> = new Array(n)
+  const factsOf: Array<SpeciesFacts | undefined> = new Array(n)
+  const layers: Layer[] = new Array(n)
+  for (let i = 0; i < n; i++) {
+    const p = doc.plantings[i]!
+    const k = memo?.plantings.get(p)
+    known[i] = k
+    // a remembered planting is the same object, so its species (and lower-cased key) is the same
+    const key = k ? k.key : p.species ? factsKey(p.species) : null
+    keys[i] = key
+    const f = key ? facts.get(key) : undefined
+    factsOf[i] = f
+    layers[i] = f?.layer ?? layerBySize(p)
+  }
   const shapes = new Map<number, Shape>()
   const cutters = groundCutters(doc, (i) => layers[i] === 'ground', shapes)
 
   const plantings = doc.plantings.map((p, index): PlantingMeasure => {
     const f = factsOf[index]
     const above = cutters.get(index)
-    const known = memo?.get(p)
-    if (known && known.lot === lot && known.region === region && sameFacts(known.facts, f) && sameCutters(known.above, above)) {
-      for (const w of known.warnings) warnings.push(w)
-      return known.measure.index === index ? known.measure : { ...known.measure, index }
+    const k = known[index]
+    if (k && k.facts === f && k.lot === lot && k.region === region && sameCutters(k.above, above)) {
+      for (const w of k.warnings) warnings.push(w)
+      if (k.measure.index !== index) k.measure = { ...k.measure, index }
+      return k.measure
     }
     const mark = warnings.length
     const measure = measurePlanting(p, index, f, layers[index]!, above)
-    if (memo) memo.set(p, { facts: f, lot, region, above, measure, warnings: warnings.slice(mark) })
+    if (memo) memo.plantings.set(p, (known[index] = { key: keys[index]!, facts: f, lot, region, above, measure, warnings: warnings.slice(mark) }))
     return measure
   })
-  return { doc, region, lot, plantings, warnings }
+  return { doc, region, lot, plantings, warnings, remembered: memo ? known : undefined }
 
   function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts | undefined, layer: Layer, above: Cutter[] | undefined): PlantingMeasure {
     let status: PlantingStatus = 'unknown'
@@ -157,6 +196,7 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
       warnings.push({ id: p.id, message: `${f.scientificName} is not recorded in ${where}, so it counts as introduced` })
     } else if (f) status = f.status as PlantingStatus
     const name = f?.commonName ?? f?.scientificName ?? p.species ?? p.label ?? 'unidentified plant'
+    const nameKey = name.toLowerCase()
     const cultivar = typeof p.cultivar === 'string' && p.cultivar.length > 0
     const typical = TYPICAL_SIZE[layer]
     const height = p.height ?? f?.height ?? typical.height
@@ -168,7 +208,7 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
       const area = layer === 'ground' ? visibleArea(ring, lot, above ?? [], shapes.get(index)).area : ringInLot(ring, lot).area
       if (area === 0) warnings.push({ id: p.id, message: layer === 'ground' ? `${name} is outside the lot or wholly covered by shapes drawn above it, so it counts nothing` : `${name} is outside the lot, so it counts nothing` })
       // built as one literal: spreading a shared base object here cost more than the geometry
-      return { index, id: p.id, name, status, layer, isArea: true, lawn: f?.lawn === true, cultivar, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height, spread: null, height, spacing }
+      return { index, id: p.id, name, nameKey, status, layer, isArea: true, lawn: f?.lawn === true, cultivar, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height, spread: null, height, spacing }
     }
     const spread = p.spread ?? f?.spread ?? typical.spread
     if (p.spread === undefined && (!f || f.estimated.includes('spread'))) warnings.push({ id: p.id, message: `The spread of ${name} is an estimate (${spread} m); measure or check it` })
@@ -177,64 +217,94 @@ export function measureYard(doc: YardDocument, facts: Map<string, SpeciesFacts>,
     const area = circleAreaInLot(p.x!, p.y!, (spread / 2) * Math.sqrt(count), lot)
     const centreIn = !lot || pointInRing([p.x!, p.y!], lot.ring)
     if (!centreIn) warnings.push({ id: p.id, message: `${name} stands outside the lot, so its plants are not counted` })
-    return { index, id: p.id, name, status, layer, isArea: false, lawn: false, cultivar, count: centreIn ? count : 0, area, volume: area * height, spread, height, spacing: null }
+    return { index, id: p.id, name, nameKey, status, layer, isArea: false, lawn: false, cultivar, count: centreIn ? count : 0, area, volume: area * height, spread, height, spacing: null }
   }
 }
 
 export const round3 = (x: number) => Math.round(x * 1000) / 1000
+
+// the answer's line for a planting; kept with a remembered result so an unchanged planting keeps the same line
+function lineOf(p: PlantingMeasure, known: Remembered | undefined): ScoredPlanting {
+  if (known?.measure === p && known.line) return known.line
+  const line = { id: p.id, status: p.status, layer: p.layer, count: p.count, area: round3(p.area), volume: round3(p.volume), cultivar: p.cultivar }
+  if (known?.measure === p) known.line = line
+  return line
+}
 const SHARE_FIELDS: ShareKind[] = ['count', 'area', 'volume']
 
 export function contribution(p: PlantingMeasure, share: ShareKind): number {
   return share === 'count' ? (p.count ?? 0) : share === 'area' ? p.area : p.volume
 }
 
-function sharesOf(plantings: PlantingMeasure[], isNative: (p: PlantingMeasure) => boolean): Shares {
-  const out = {} as Shares
-  for (const s of SHARE_FIELDS) {
-    let native = 0
-    let total = 0
-    for (const p of plantings) {
-      const c = contribution(p, s)
-      total += c
-      if (isNative(p)) native += c
-    }
-    out[s] = { native: round3(native), total: round3(total), share: total > 0 ? native / total : null }
+/** Sums over a measured yard, made in one pass: per status, native, straight-species native, and total. */
+export interface YardTally {
+  byStatus: Record<PlantingStatus, Totals>
+  native: Totals
+  straight: Totals
+  total: Totals
+  /** the plantings the moves look at: invasive ones, and lawn */
+  invasive: PlantingMeasure[]
+  lawn: PlantingMeasure[]
+}
+
+export function tallyYard(plantings: PlantingMeasure[]): YardTally {
+  const zero = (): Totals => ({ count: 0, area: 0, volume: 0 })
+  const t: YardTally = {
+    byStatus: { native: zero(), introduced: zero(), invasive: zero(), nativeAndIntroduced: zero(), unknown: zero() },
+    native: zero(), straight: zero(), total: zero(), invasive: [], lawn: [],
   }
+  for (const p of plantings) {
+    const count = p.count ?? 0
+    const s = t.byStatus[p.status]
+    s.count += count; s.area += p.area; s.volume += p.volume
+    t.total.count += count; t.total.area += p.area; t.total.volume += p.volume
+    if (p.status === 'native') {
+      t.native.count += count; t.native.area += p.area; t.native.volume += p.volume
+      if (!p.cultivar) { t.straight.count += count; t.straight.area += p.area; t.straight.volume += p.volume }
+    } else if (p.status === 'invasive') t.invasive.push(p)
+    if (p.lawn && p.isArea) t.lawn.push(p)
+  }
+  return t
+}
+
+function sharesOf(native: Totals, total: Totals): Shares {
+  const out = {} as Shares
+  for (const s of SHARE_FIELDS) out[s] = { native: round3(native[s]), total: round3(total[s]), share: total[s] > 0 ? native[s] / total[s] : null }
   return out
 }
 
 /** The score of a yard document for a region, from species facts keyed by lower-case name, against `goal`. */
 export function scoreYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, goal: number, region?: string | null, memo?: MeasureMemo): Score {
   const measured = measureYard(doc, facts, region, memo)
-  const { plantings, warnings } = measured
-  const zero = (): Totals => ({ count: 0, area: 0, volume: 0 })
-  const byStatus: Score['byStatus'] = { native: zero(), introduced: zero(), invasive: zero(), nativeAndIntroduced: zero(), unknown: zero() }
-  for (const p of plantings) {
-    const t = byStatus[p.status]
-    t.count += p.count ?? 0
-    t.area += p.area
-    t.volume += p.volume
-  }
-  for (const t of Object.values(byStatus)) { t.area = round3(t.area); t.volume = round3(t.volume) }
-  const { moves, warnings: moveWarnings } = movesToGoal(measured, goal)
+  const tally = tallyYard(measured.plantings)
+  const byStatus = {} as Score['byStatus']
+  for (const [status, t] of Object.entries(tally.byStatus)) byStatus[status as PlantingStatus] = { count: t.count, area: round3(t.area), volume: round3(t.volume) }
+  const { moves, warnings: moveWarnings } = movesToGoal(measured, goal, tally)
+  const remembered = measured.remembered
   return {
     goal,
-    shares: sharesOf(plantings, (p) => p.status === 'native'),
+    shares: sharesOf(tally.native, tally.total),
     byStatus,
-    straightSpecies: sharesOf(plantings, (p) => p.status === 'native' && !p.cultivar),
-    plantings: plantings.map((p) => ({ id: p.id, status: p.status, layer: p.layer, count: p.count, area: round3(p.area), volume: round3(p.volume), cultivar: p.cultivar })),
+    straightSpecies: sharesOf(tally.straight, tally.total),
+    plantings: measured.plantings.map((p, i) => lineOf(p, remembered?.[i])),
     moves,
-    warnings: [...warnings, ...moveWarnings],
+    warnings: moveWarnings.length ? [...measured.warnings, ...moveWarnings] : measured.warnings,
   }
 }
+
+// loaded on first use so the pure engine can be imported without the database layer (once: a dynamic import
+// resolves the module again on every call)
+let databaseLayer: Promise<[typeof import('./species-lookup'), typeof import('./organisation')]> | null = null
 
 /** The score of a document, with facts from the species catalogue and the organisation's goal. */
 export async function scoreDocument(doc: YardDocument, region?: string | null, memo?: MeasureMemo): Promise<Score> {
   const where = region ?? doc.region ?? null
+  // distinct names first: a yard names a few dozen species over a thousand plantings
+  const given = new Set<string>()
+  for (const p of doc.plantings) if (p.species) given.add(p.species)
   const names = new Set<string>()
-  for (const p of doc.plantings) if (p.species) names.add(factsKey(p.species))
-  // loaded on first use so the pure engine can be imported without the database layer
-  const [{ loadSpeciesFacts }, { organisationGoal }] = await Promise.all([import('./species-lookup'), import('./organisation')])
+  for (const n of given) names.add(factsKey(n))
+  const [{ loadSpeciesFacts }, { organisationGoal }] = await (databaseLayer ??= Promise.all([import('./species-lookup'), import('./organisation')]))
   const [facts, goal] = await Promise.all([
     where && names.size ? loadSpeciesFacts(names, where) : Promise.resolve(new Map<string, SpeciesFacts>()),
     organisationGoal(),

@@ -45,6 +45,18 @@ export async function requireUser(event: H3Event): Promise<AccountRow> {
   return row
 }
 
+/**
+ * The signed-in user's id from the sealed session alone, without re-reading the account: for routes that read
+ * and write nothing of anyone's and only need to know a person is signed in (scoring a posted document, which
+ * the editor does on every change). Accounts are never deleted and scoring needs no role, so nothing a database
+ * re-read could catch applies. 401 when nobody is signed in.
+ */
+export async function requireSignedIn(event: H3Event): Promise<number> {
+  const id = await sessionUserId(event)
+  if (!id) throw createError({ status: 401, message: 'Please sign in' })
+  return id
+}
+
 /** The signed-in user when they hold one of `roles`; 403 otherwise. */
 export async function requireRole(event: H3Event, ...roles: Role[]): Promise<AccountRow> {
   const user = await requireUser(event)

@@ -86,7 +86,10 @@ export function changesSince(snapshot: YardSnapshot, doc: Pick<YardDocument, Cha
 
 function applyList<T extends YardArea | YardPlanting>(list: 'areas' | 'plantings', items: T[], change: ListChanges<T> | undefined, issues: ElementIssue[]): T[] {
   if (!change || (!change.upsert?.length && !change.remove?.length)) return items
-  const index = new Map(items.map((item, i) => [item.id, i]))
+  // a drag changes one or two elements: scanning for them beats indexing a thousand
+  const few = (change.upsert?.length ?? 0) + (change.remove?.length ?? 0) <= 8
+  const map = few ? null : new Map(items.map((item, i) => [item.id, i]))
+  const index = { get: (id: string) => { const i = map ? map.get(id) : items.findIndex((item) => item.id === id); return i === -1 ? undefined : i } }
   const out = items.slice()
   const gone = new Set<number>()
   for (const [k, id] of (change.remove ?? []).entries()) {
@@ -122,8 +125,12 @@ export function applyYardChanges(base: YardDocument, changes: YardChanges): { do
   doc.plantings = applyList('plantings', base.plantings, changes.plantings, issues)
   if (doc.areas.length > MAX_AREAS) issues.push({ path: ['changes', 'areas'], message: `A yard has at most ${MAX_AREAS} areas` })
   if (doc.plantings.length > MAX_PLANTINGS) issues.push({ path: ['changes', 'plantings'], message: `A yard has at most ${MAX_PLANTINGS} plantings` })
-  // ids are checked across the whole result: a new element may reuse the id of one kept in another list
-  if (!issues.length && (changes.areas || changes.plantings || changes.fields?.lines)) {
+  // ids are checked across the whole result: a new element may reuse the id of one kept in another list. Only
+  // new elements can clash, and a drag adds none, so a few changes are checked by scanning rather than indexing.
+  const upserts = [...(changes.areas?.upsert ?? []), ...(changes.plantings?.upsert ?? [])]
+  const inDoc = (id: string) => doc.areas.filter((a) => a.id === id).length + doc.plantings.filter((p) => p.id === id).length + doc.lines.filter((l) => l.id === id).length
+  const clash = upserts.length > 8 || changes.fields?.lines !== undefined || upserts.some((item) => inDoc(item.id) > 1)
+  if (!issues.length && clash) {
     for (const issue of duplicateIdIssues(doc)) issues.push({ path: ['changes', ...issue.path], message: issue.message })
   }
   return { doc, issues }

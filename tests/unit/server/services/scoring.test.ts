@@ -6,7 +6,7 @@ import { TRIANGULAR_FACTOR } from '#shared/utils/plant-count'
 import fc from 'fast-check'
 import { applyYardChanges, changesSince, yardSnapshot } from '#shared/utils/yard-changes'
 import { facts, rect, yard, randomYards, randomEdits, applyEdit } from './score-fixtures'
-import type { MeasureMemo } from '../../../../server/services/scoring'
+import { newMeasureMemo } from '../../../../server/services/scoring'
 
 // A hand-worked yard: a 10 × 10 m lot of lawn, a 4 × 5 m bed drawn above it holding a sedge drift at 0.5 m
 // spacing, and a native tree 4 m across standing over the lawn.
@@ -139,7 +139,7 @@ describe('re-scoring after edits', () => {
     const wire = <T>(v: T): T => JSON.parse(JSON.stringify(v))
     let reused = 0
     fc.assert(fc.property(randomYards(), randomEdits(8), ({ doc, goal }, edits) => {
-      const memo: MeasureMemo = new WeakMap()
+      const memo = newMeasureMemo()
       let before = wire(doc)
       scoreYard(before, facts(), goal, null, memo)
       for (const [i, e] of edits.entries()) {
