@@ -82,6 +82,9 @@ describe('the yard editor', () => {
 
     const id = await newYard(context)
     const page = await context.newPage()
+    // what the editor sends to the score route: the whole yard first, then changes against the last answer
+    const scoreBodies: Array<Record<string, unknown>> = []
+    page.on('request', (r) => { if (r.url().endsWith('/api/score') && r.method() === 'POST') scoreBodies.push(r.postDataJSON()) })
     await openEditor(page, id)
 
     await page.locator('[data-tool=lot]').click()
@@ -116,6 +119,24 @@ describe('the yard editor', () => {
     }
     // the server has what the screen shows
     expect((await savedDocument(context, id)).plantings).toHaveLength(5)
+    // after the first whole yard the editor sent only changes, and the line per planting it pieced together from
+    // them is the whole document's: each planting listed under its status, with its layer and size
+    expect(scoreBodies.length).toBeGreaterThan(2)
+    expect('basis' in scoreBodies[0]!).toBe(false)
+    expect(scoreBodies.slice(1).some((b) => 'basis' in b && 'changes' in b)).toBe(true)
+    await page.locator('[data-tab=score]').click()
+    for (const line of score.plantings as Array<{ id: string; status: string; layer: string }>) {
+      const row = page.locator(`[data-test=score-panel] [data-planting="${line.id}"]`)
+      await expect.poll(() => row.count()).toBe(1)
+      expect(await row.textContent()).toContain(line.layer)
+    }
+    expect(await page.locator('[data-test=score-panel] [data-planting]').count()).toBe(score.plantings.length)
+    // the introduced plant is listed apart from the natives
+    const introducedLine = (score.plantings as Array<{ id: string; status: string }>).find((l) => l.status === 'introduced')!
+    const nativeLine = (score.plantings as Array<{ id: string; status: string }>).find((l) => l.status === 'native')!
+    const sectionOf = (pid: string) => page.locator(`[data-test=score-panel] section:has([data-planting="${pid}"]) h3`).textContent()
+    expect(await sectionOf(introducedLine.id)).not.toBe(await sectionOf(nativeLine.id))
+    await page.locator('[data-tab=details]').click()
 
     // undo and redo
     await page.locator('[data-test=undo]').click()
