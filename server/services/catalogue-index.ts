@@ -467,7 +467,8 @@ export function buildRegionFits(statuses: Map<number, RegionStatus>, byId: Map<n
     if (s) scored.push({ s, base: scoreFit(s, { region: '' }, null) })
   }
   scored.sort((a, b) => b.base - a.base || byCodeUnits(a.s.data.scientificName, b.s.data.scientificName))
-  return { natives: scored.map((x) => x.s), base: Int16Array.from(scored, (x) => x.base), answers: new Lru(200) }
+  // per region: a few dozen answers of up to 200 items each
+  return { natives: scored.map((x) => x.s), base: Int16Array.from(scored, (x) => x.base), answers: new Lru(32) }
 }
 
 const byScoreThenName = (a: { s: CachedSpecies; score: number }, b: { s: CachedSpecies; score: number }) =>
