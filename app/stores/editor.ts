@@ -36,7 +36,10 @@ export type Element =
 export const LOT_ID = 'lot'
 export const HISTORY_LIMIT = 150
 
-interface HistoryEntry { label: string; doc: string; selection: string[] }
+/** Something outside the document an edit stands for, to be taken back on undo and made again on redo. */
+export interface HistoryEffect { kind: 'accept-recommendation'; recommendationId: number }
+interface HistoryEntry { label: string; doc: string; selection: string[]; effect?: HistoryEffect }
+export type HistoryListener = (effect: HistoryEffect, direction: 'undo' | 'redo') => void
 
 // ---------- pure helpers (unit-tested) ----------
 
@@ -187,9 +190,9 @@ export const useEditorStore = defineStore('editor', () => {
    * The one way to change the document. `mutate` edits the document in place; returning false cancels.
    * Returns true when a change was recorded.
    */
-  function applyChange(label: string, mutate: (doc: YardDocument) => void | boolean, options: { select?: string[] } = {}): boolean {
+  function applyChange(label: string, mutate: (doc: YardDocument) => void | boolean, options: { select?: string[]; effect?: HistoryEffect } = {}): boolean {
     if (!canEdit.value) return false
-    const before = snapshot(label)
+    const before: HistoryEntry = { ...snapshot(label), effect: options.effect }
     let result: void | boolean
     try {
       result = mutate(doc.value)
@@ -217,18 +220,26 @@ export const useEditorStore = defineStore('editor', () => {
     }, { select: options.select ?? [] })
   }
 
-  function step(from: typeof past, to: typeof past) {
+  // told when undo or redo passes an edit that stands for something outside the document
+  const historyListeners = new Set<HistoryListener>()
+  function onHistoryEffect(listener: HistoryListener) {
+    historyListeners.add(listener)
+    return () => historyListeners.delete(listener)
+  }
+
+  function step(from: typeof past, to: typeof past, direction: 'undo' | 'redo') {
     const entry = from.value.at(-1)
     if (!entry || !canEdit.value) return null
-    to.value = [...to.value, snapshot(entry.label)]
+    to.value = [...to.value, { ...snapshot(entry.label), effect: entry.effect }]
     from.value = from.value.slice(0, -1)
     doc.value = JSON.parse(entry.doc)
     selection.value = entry.selection.filter((id) => findElement(doc.value, id))
     revision.value++
+    if (entry.effect) for (const listener of historyListeners) listener(entry.effect, direction)
     return entry.label
   }
-  const undo = () => step(past, future)
-  const redo = () => step(future, past)
+  const undo = () => step(past, future, 'undo')
+  const redo = () => step(future, past, 'redo')
 
   function select(ids: string[], opts: { additive?: boolean; toggle?: boolean } = {}) {
     if (opts.toggle) {
@@ -309,7 +320,7 @@ export const useEditorStore = defineStore('editor', () => {
   }
 
   return {
-    yardId, name, region, access, version, doc, selection, past, future, revision,
+    yardId, name, region, access, version, doc, selection, past, future, revision, onHistoryEffect,
     canEdit, canUndo, canRedo, undoLabel, redoLabel, units, selectedSet, selectedElements,
     load, applyChange, replaceDocument, undo, redo, select, clearSelection,
     addArea, addPlanting, addLine, setBoundary, updateElement, setPoints, deleteSelected, duplicateSelected,

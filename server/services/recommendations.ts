@@ -98,6 +98,19 @@ export async function acceptRecommendation(event: H3Event, _user: AccountRow, id
   }
 }
 
+/**
+ * Takes an accepted recommendation back to proposed: the owner undid, in the editor, the edit that accepted it
+ * (the editor saves the plan without it). 409 unless it is accepted.
+ */
+export async function reopenRecommendation(event: H3Event, id: number) {
+  const rec = await getRecommendation(id)
+  await requireYardAccess(event, rec.yardId, 'owner')
+  const [reopened] = await useDb().update(recommendations).set({ status: 'proposed', decidedBy: null, decidedAt: null, appliedVersion: null })
+    .where(and(eq(recommendations.id, rec.id), eq(recommendations.status, 'accepted')))
+  if (reopened.affectedRows === 0) throw createError({ status: 409, message: `Only an accepted recommendation can be taken back; this one is ${rec.status}` })
+  return { recommendation: await getRecommendation(rec.id) }
+}
+
 export async function declineRecommendation(event: H3Event, _user: AccountRow, id: number, reason: string) {
   const { rec, user } = await decide(event, id)
   await useDb().update(recommendations).set({ status: 'declined', declineReason: reason, decidedBy: user.id, decidedAt: new Date() })

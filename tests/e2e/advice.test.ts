@@ -45,9 +45,17 @@ describe('advice in the browser', () => {
     const recId = Number((await rec.getAttribute('data-test'))!.split('-')[1])
     // the editor saves the accepted change like any other edit
     await expect.poll(async () => (await owner.client.get(`/api/yards/${yardId}`)).body.document.plantings.some((p: { id: string }) => p.id === `rec-${recId}`), { timeout: 15_000 }).toBe(true)
-    const advice = (await owner.client.get(`/api/yards/${yardId}/advice`)).body
-    expect(advice.recommendations.find((r: { id: number }) => r.id === recId).status).toBe('accepted')
+    const statusOf = async () => (await owner.client.get(`/api/yards/${yardId}/advice`)).body.recommendations.find((r: { id: number }) => r.id === recId).status
+    expect(await statusOf()).toBe('accepted')
     await op.screenshot({ path: '.data/e2e-advice-panel.png' })
+    // Undo takes it out of the plan and back to decide; Redo accepts it again
+    await op.locator('[data-test=undo]').click()
+    await expect.poll(statusOf).toBe('proposed')
+    await expect.poll(() => rec.locator('[data-test=accept]').count()).toBe(1)
+    await expect.poll(async () => (await owner.client.get(`/api/yards/${yardId}`)).body.document.plantings.some((p: { id: string }) => p.id === `rec-${recId}`), { timeout: 15_000 }).toBe(false)
+    await op.locator('[data-test=redo]').click()
+    await expect.poll(statusOf).toBe('accepted')
+    await expect.poll(async () => (await owner.client.get(`/api/yards/${yardId}`)).body.document.plantings.some((p: { id: string }) => p.id === `rec-${recId}`), { timeout: 15_000 }).toBe(true)
     await context.close()
   })
 

@@ -165,6 +165,15 @@ export const rows: AccessRow[] = [
     expect: { anonymous: 401, owner: 200, otherHomeowner: 404, advisor: 403, coordinator: 404 },
   },
   {
+    file: 'recommendations/[id]/reopen.post.ts', method: 'POST',
+    request: async (c) => {
+      const r = await recommendationOn(c.owner)
+      await c.owner.post(`/api/recommendations/${r.recommendationId}/accept`, { version: 1, apply: 'editor' })
+      return { path: `/api/recommendations/${r.recommendationId}/reopen` }
+    },
+    expect: { anonymous: 401, owner: 200, otherHomeowner: 404, advisor: 403, coordinator: 404 },
+  },
+  {
     file: 'recommendations/[id]/decline.post.ts', method: 'POST',
     request: async (c) => ({ path: `/api/recommendations/${(await recommendationOn(c.owner)).recommendationId}/decline`, body: { reason: 'We like the lawn' } }),
     expect: { anonymous: 401, owner: 200, otherHomeowner: 404, advisor: 403, coordinator: 404 },

@@ -117,6 +117,13 @@ describe('recommendations', () => {
     const viaEditor = await owner.client.post(`/api/recommendations/${b.id}/accept`, { version: 1, apply: 'editor' })
     expect(viaEditor.body.recommendation.status).toBe('accepted')
     expect((await owner.client.get(`/api/yards/${yardId}`)).body.version).toBe(1)
+    // undone in the editor: back to proposed, to decide again; only an accepted one can be taken back
+    const reopened = await owner.client.post(`/api/recommendations/${b.id}/reopen`)
+    expect(reopened.status).toBe(200)
+    expect(reopened.body.recommendation).toMatchObject({ status: 'proposed', decidedAt: null })
+    expect((await owner.client.post(`/api/recommendations/${b.id}/reopen`)).status).toBe(409)
+    expect((await owner.client.post(`/api/recommendations/${a.id}/reopen`)).status).toBe(409)
+    expect((await owner.client.post(`/api/recommendations/${b.id}/accept`, { version: 1, apply: 'editor' })).body.recommendation.status).toBe('accepted')
   })
 
   it('names the missing bed in a 400', async () => {
