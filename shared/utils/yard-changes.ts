@@ -84,12 +84,17 @@ export function changesSince(snapshot: YardSnapshot, doc: Pick<YardDocument, Cha
   return out
 }
 
-function applyList<T extends YardArea | YardPlanting>(list: 'areas' | 'plantings', items: T[], change: ListChanges<T> | undefined, issues: ElementIssue[]): T[] {
+/** Where an element id sits in a list of the base document, when the caller keeps an index (exact, or undefined). */
+export type ElementLocator = (list: 'areas' | 'plantings', id: string) => number | undefined
+
+const scanFor = <T extends { id: string }>(items: T[], id: string) => { const i = items.findIndex((item) => item.id === id); return i < 0 ? undefined : i }
+
+function applyList<T extends YardArea | YardPlanting>(list: 'areas' | 'plantings', items: T[], change: ListChanges<T> | undefined, issues: ElementIssue[], locate?: ElementLocator): T[] {
   if (!change || (!change.upsert?.length && !change.remove?.length)) return items
-  // a drag changes one or two elements: scanning for them beats indexing a thousand
+  // a drag changes one or two elements: scanning for them (or asking the caller's index) beats indexing a thousand
   const few = (change.upsert?.length ?? 0) + (change.remove?.length ?? 0) <= 8
   const map = few ? null : new Map(items.map((item, i) => [item.id, i]))
-  const index = { get: (id: string) => { const i = map ? map.get(id) : items.findIndex((item) => item.id === id); return i === -1 ? undefined : i } }
+  const index = { get: (id: string) => (map ? map.get(id) : locate ? locate(list, id) : scanFor(items, id)) }
   const out = items.slice()
   const gone = new Set<number>()
   for (const [k, id] of (change.remove ?? []).entries()) {
@@ -112,7 +117,7 @@ function applyList<T extends YardArea | YardPlanting>(list: 'areas' | 'plantings
  * `base` with `changes` applied; unchanged elements are the same objects as in `base` (the score engine reuses
  * what it worked out for them). Issues carry paths into the request (`changes.plantings.upsert.0.points`).
  */
-export function applyYardChanges(base: YardDocument, changes: YardChanges): { doc: YardDocument; issues: ElementIssue[] } {
+export function applyYardChanges(base: YardDocument, changes: YardChanges, locate?: ElementLocator): { doc: YardDocument; issues: ElementIssue[] } {
   const issues: ElementIssue[] = []
   const doc: YardDocument = { ...base }
   for (const [key, value] of Object.entries(changes.fields ?? {})) {
@@ -121,15 +126,19 @@ export function applyYardChanges(base: YardDocument, changes: YardChanges): { do
     } else if (value === null && key !== 'zone' && key !== 'backdrop') delete (doc as Record<string, unknown>)[key]
     else (doc as Record<string, unknown>)[key] = value
   }
-  doc.areas = applyList('areas', base.areas, changes.areas, issues)
-  doc.plantings = applyList('plantings', base.plantings, changes.plantings, issues)
+  doc.areas = applyList('areas', base.areas, changes.areas, issues, locate)
+  doc.plantings = applyList('plantings', base.plantings, changes.plantings, issues, locate)
   if (doc.areas.length > MAX_AREAS) issues.push({ path: ['changes', 'areas'], message: `A yard has at most ${MAX_AREAS} areas` })
   if (doc.plantings.length > MAX_PLANTINGS) issues.push({ path: ['changes', 'plantings'], message: `A yard has at most ${MAX_PLANTINGS} plantings` })
   // ids are checked across the whole result: a new element may reuse the id of one kept in another list. Only
   // new elements can clash, and a drag adds none, so a few changes are checked by scanning rather than indexing.
-  const upserts = [...(changes.areas?.upsert ?? []), ...(changes.plantings?.upsert ?? [])]
-  const inDoc = (id: string) => doc.areas.filter((a) => a.id === id).length + doc.plantings.filter((p) => p.id === id).length + doc.lines.filter((l) => l.id === id).length
-  const clash = upserts.length > 8 || changes.fields?.lines !== undefined || upserts.some((item) => inDoc(item.id) > 1)
+  const where = (list: 'areas' | 'plantings', id: string) => (locate ? locate(list, id) : scanFor(base[list] as Array<{ id: string }>, id))
+  const added = [
+    ...(changes.areas?.upsert ?? []).filter((a) => where('areas', a.id) === undefined),
+    ...(changes.plantings?.upsert ?? []).filter((p) => where('plantings', p.id) === undefined),
+  ]
+  const taken = (id: string) => where('areas', id) !== undefined || where('plantings', id) !== undefined || doc.lines.some((l) => l.id === id)
+  const clash = added.length > 8 || changes.fields?.lines !== undefined || added.some((item, i) => taken(item.id) || added.findIndex((x) => x.id === item.id) !== i)
   if (!issues.length && clash) {
     for (const issue of duplicateIdIssues(doc)) issues.push({ path: ['changes', ...issue.path], message: issue.message })
   }
