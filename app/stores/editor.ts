@@ -356,8 +356,12 @@ export const useEditorViewStore = defineStore('editor-view', () => {
     clearTimeout(timer)
     timer = setTimeout(() => { message.value = null }, 4000)
   }
-  return { tool, shape, snapping, plantChoice, score, scoreState, statusById, message, say }
+  // advisors' pins from site visits, drawn over the plan (not part of the document)
+  const pins = shallowRef<VisitPin[]>([])
+  return { tool, shape, snapping, plantChoice, score, scoreState, statusById, message, say, pins }
 })
+
+export interface VisitPin { id: number; x: number; y: number; comment: string }
 
 // ---------- geometry for hit-testing and cautions (pure, unit-tested) ----------
 

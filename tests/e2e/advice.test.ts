@@ -14,7 +14,8 @@ afterAll(async () => { await browser?.close() })
 describe('advice in the browser', () => {
   it('previews, records and accepts a recommendation, undoably', async () => {
     const owner = await newHomeowner('e2e-advice')
-    const { visitId, yardId } = await visitTo(owner.client)
+    const { visitId, yardId, advisor } = await visitTo(owner.client)
+    expect((await advisor.post(`/api/visits/${visitId}/pins`, { x: 3, y: 2, comment: 'A rain garden could catch the downspout here' })).status).toBe(201)
 
     const { context: advisorCtx, requests } = await newContext(browser)
     const page = await advisorCtx.newPage()
@@ -38,6 +39,13 @@ describe('advice in the browser', () => {
     await op.goto(`/yards/${yardId}`)
     await hydrated(op)
     await op.locator('[data-test=advice-toggle]').click()
+    // the visit's pin is drawn on the plan, numbered as the panel lists it
+    await expect.poll(() => op.locator('[data-test=pin-list] li').first().textContent()).toContain('rain garden')
+    const drawn = () => op.evaluate(() => {
+      const stage = (window as unknown as { Konva: { stages: Array<{ find(sel: string): Array<{ x(): number; y(): number }> }> } }).Konva.stages[0]!
+      return stage.find('.visit-pin').map((n) => [n.x(), n.y()])
+    })
+    await expect.poll(drawn).toEqual([[3, 2]])
     const rec = op.locator('[data-test^=recommendation-]').first()
     await expect.poll(() => rec.textContent()).toContain('Add 6 × Asclepias tuberosa')
     await rec.locator('[data-test=accept]').click()
