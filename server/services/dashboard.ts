@@ -2,7 +2,7 @@
 // columns (never a loop over yards). Only pledges whose households consented count, and no row names a yard,
 // its address or its owner.
 import { and, eq, gte, lte, asc, desc, like, sql, type SQL } from 'drizzle-orm'
-import { drives, pledges, shareSnapshots, driveSummaries, type DriveRow } from '../database/schema'
+import { drives, pledges, shareSnapshots, driveSummaries, driveViewCache, type DriveRow } from '../database/schema'
 import type { PledgesQuery } from '#shared/schemas/drives'
 import { driveView, shareColumn, today } from './drives'
 
@@ -79,6 +79,25 @@ export async function cachedDriveSummary(id: number | 'current'): Promise<DriveS
   if (!cache) await db.insert(driveSummaries).ignore().values({ driveId: row.drive.id, version })
   const body = await driveSummary(row.drive)
   await db.update(driveSummaries).set({ body, bodyVersion: version, computedAt: new Date() }).where(eq(driveSummaries.driveId, row.drive.id))
+  return body
+}
+
+/**
+ * A dashboard view of a drive (progress, neighbourhoods) from the shared cache while the drive's pledges have not
+ * changed since it was computed (and for at most a minute, as the summary); computed and stored otherwise.
+ */
+export async function cachedDriveView<T extends object>(drive: DriveRow, view: 'progress' | 'neighbourhoods', compute: (drive: DriveRow) => Promise<T>): Promise<T> {
+  const db = useDb()
+  const [row] = await db.select({ version: driveSummaries.version, body: driveViewCache.body, bodyVersion: driveViewCache.bodyVersion, computedAt: driveViewCache.computedAt })
+    .from(driveSummaries).leftJoin(driveViewCache, and(eq(driveViewCache.driveId, driveSummaries.driveId), eq(driveViewCache.view, view)))
+    .where(eq(driveSummaries.driveId, drive.id)).limit(1)
+  if (row?.body && row.bodyVersion === row.version && row.computedAt && Date.now() - row.computedAt.getTime() < SUMMARY_MAX_AGE_MS) return row.body as T
+  // the version read before computing: a change made meanwhile leaves the stored body out of date, as it should
+  const version = row?.version ?? 1
+  if (!row) await db.insert(driveSummaries).ignore().values({ driveId: drive.id, version })
+  const body = await compute(drive)
+  const stored = { body: body as Record<string, unknown>, bodyVersion: version, computedAt: new Date() }
+  await db.insert(driveViewCache).values({ driveId: drive.id, view, ...stored }).onDuplicateKeyUpdate({ set: stored })
   return body
 }
 

@@ -1,4 +1,4 @@
-import { mysqlTable, varchar, mysqlEnum, text, int, tinyint, double, date, decimal, boolean, timestamp, json, index, uniqueIndex } from 'drizzle-orm/mysql-core'
+import { mysqlTable, varchar, mysqlEnum, text, int, tinyint, double, date, decimal, boolean, timestamp, json, index, uniqueIndex, primaryKey } from 'drizzle-orm/mysql-core'
 import { sql } from 'drizzle-orm'
 import { id, ref, timestamps } from './columns'
 import { users } from './accounts'
@@ -104,6 +104,18 @@ export const driveSummaries = mysqlTable('drive_summaries', {
   bodyVersion: int('body_version', { unsigned: true }),
   computedAt: timestamp('computed_at', { fsp: 3 }),
 })
+
+/**
+ * The dashboard's other views of a drive (progress over time, neighbourhoods), cached like the summary: a body
+ * is reused while it was computed for the drive's current `version` (in drive_summaries) within the last minute.
+ */
+export const driveViewCache = mysqlTable('drive_view_cache', {
+  driveId: ref('drive_id').notNull().references(() => drives.id, { onDelete: 'cascade' }),
+  view: varchar('view', { length: 32 }).notNull(),
+  body: json('body').$type<Record<string, unknown>>().notNull(),
+  bodyVersion: int('body_version', { unsigned: true }).notNull(),
+  computedAt: timestamp('computed_at', { fsp: 3 }).notNull(),
+}, (t) => [primaryKey({ columns: [t.driveId, t.view] })])
 
 export const MAILING_KINDS = ['reminder', 'thanks'] as const
 export const MAILING_AUDIENCES = ['all', 'pledged', 'reached', 'verified'] as const

@@ -1,10 +1,10 @@
 // A drive's pledges by neighbourhood, small groups folded together (coordinators).
 import { driveParam } from '#shared/schemas/drives'
 import { requireDrive } from '../../../services/drives'
-import { driveNeighbourhoods } from '../../../services/dashboard'
+import { cachedDriveView, driveNeighbourhoods } from '../../../services/dashboard'
 
 export default defineEventHandler(async (event) => {
   const { id } = readParamsWith(event, driveParam)
   await requireRole(event, 'coordinator')
-  return driveNeighbourhoods(await requireDrive(id))
+  return cachedDriveView(await requireDrive(id), 'neighbourhoods', driveNeighbourhoods)
 })
