@@ -22,7 +22,7 @@ export function useYardScore() {
   async function scoreOf(doc: YardDocument, seq: number): Promise<ScoreResult> {
     const base = acked
     const snapshot = yardSnapshot(doc)
-    const changes = base && changesSince(base.snapshot, doc)
+    const changes = base && changesSince(base.snapshot, doc, snapshot)
     let result: { score: ScoreResult; basis: string } | null = null
     if (base && changes) {
       try {

@@ -146,16 +146,21 @@ export function tableItem(s: CachedSpecies, status: RegionStatus | null) {
   }
 }
 
+/** One page of species table rows from positions into `list`; `statuses` given when the query names a region. */
+function pageOf(list: CachedSpecies[], positions: ArrayLike<number>, page: number, pageSize: number, statuses: Map<number, RegionStatus> | null) {
+  const items = []
+  for (let k = (page - 1) * pageSize; k < Math.min(positions.length, page * pageSize); k++) {
+    const s = list[positions[k]!]!
+    items.push(tableItem(s, statuses ? statuses.get(s.id) ?? 'absent' : null))
+  }
+  return { items, total: positions.length, page, pageSize }
+}
+
 export function tablePage(ix: TableIndex, q: SpeciesListQuery, statuses: Map<number, RegionStatus>, named?: Uint8Array) {
   const page = q.page ?? 1
   const pageSize = q.pageSize ?? SPECIES_PAGE_SIZE
   const hits = tableMatches(ix, q, statuses, named)
-  const items = []
-  for (let k = (page - 1) * pageSize; k < Math.min(hits.length, page * pageSize); k++) {
-    const s = ix.list[hits[k]!]!
-    items.push(tableItem(s, q.region ? statuses.get(s.id) ?? 'absent' : null))
-  }
-  return { items, total: hits.length, page, pageSize }
+  return pageOf(ix.list, hits, page, pageSize, q.region ? statuses : null)
 }
 
 // ---------------------------------------------------------------------------------------------------------
@@ -345,12 +350,7 @@ export function searchPage(ix: SearchIndex, q: SpeciesSearchQuery, statuses: Map
   const page = q.page ?? 1
   const pageSize = q.pageSize ?? SPECIES_PAGE_SIZE
   const ranked = searchMatches(ix, q, statuses)
-  const items = []
-  for (let k = (page - 1) * pageSize; k < Math.min(ranked.length, page * pageSize); k++) {
-    const s = ix.list[ranked[k]!]!
-    items.push(tableItem(s, q.region ? statuses.get(s.id) ?? 'absent' : null))
-  }
-  return { items, total: ranked.length, page, pageSize }
+  return pageOf(ix.list, ranked, page, pageSize, q.region ? statuses : null)
 }
 
 // ---------------------------------------------------------------------------------------------------------

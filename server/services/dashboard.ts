@@ -58,6 +58,10 @@ export async function driveSummary(drive: DriveRow) {
 
 export type DriveSummary = Awaited<ReturnType<typeof driveSummary>>
 
+// a stored body is reused while it was computed for the drive's current version, within the last minute
+const isFresh = (body: unknown, bodyVersion: number | null, version: number, computedAt: Date | null) =>
+  !!body && bodyVersion === version && !!computedAt && Date.now() - computedAt.getTime() < SUMMARY_MAX_AGE_MS
+
 /**
  * The summary for `current` or a drive id, from the shared cache when nothing changed since it was computed:
  * the drive and its cache row come in one query, so an unchanged drive costs that query only.
@@ -71,9 +75,7 @@ export async function cachedDriveSummary(id: number | 'current'): Promise<DriveS
     .orderBy(desc(drives.startsOn), desc(drives.id)).limit(1)
   if (!row) throw createError({ status: 404, message: id === 'current' ? 'No pledge drive is running' : 'No such drive' })
   const cache = row.cache
-  if (cache?.body && cache.bodyVersion === cache.version && cache.computedAt && Date.now() - cache.computedAt.getTime() < SUMMARY_MAX_AGE_MS) {
-    return cache.body as DriveSummary
-  }
+  if (cache && isFresh(cache.body, cache.bodyVersion, cache.version, cache.computedAt)) return cache.body as DriveSummary
   // the version read before computing: a change made meanwhile leaves the stored body out of date, as it should
   const version = cache?.version ?? 1
   if (!cache) await db.insert(driveSummaries).ignore().values({ driveId: row.drive.id, version })
@@ -91,7 +93,7 @@ export async function cachedDriveView<T extends object>(drive: DriveRow, view: '
   const [row] = await db.select({ version: driveSummaries.version, body: driveViewCache.body, bodyVersion: driveViewCache.bodyVersion, computedAt: driveViewCache.computedAt })
     .from(driveSummaries).leftJoin(driveViewCache, and(eq(driveViewCache.driveId, driveSummaries.driveId), eq(driveViewCache.view, view)))
     .where(eq(driveSummaries.driveId, drive.id)).limit(1)
-  if (row?.body && row.bodyVersion === row.version && row.computedAt && Date.now() - row.computedAt.getTime() < SUMMARY_MAX_AGE_MS) return row.body as T
+  if (row && isFresh(row.body, row.bodyVersion, row.version, row.computedAt)) return row.body as T
   // the version read before computing: a change made meanwhile leaves the stored body out of date, as it should
   const version = row?.version ?? 1
   if (!row) await db.insert(driveSummaries).ignore().values({ driveId: drive.id, version })

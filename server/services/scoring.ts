@@ -375,8 +375,8 @@ export async function factsAndGoal(names: Set<string>, region: string | null): P
 }
 
 /** The score of a document, with facts from the species catalogue and the organisation's goal. */
-export async function scoreDocument(doc: YardDocument, region?: string | null, memo?: MeasureMemo): Promise<Score> {
+export async function scoreDocument(doc: YardDocument, region?: string | null): Promise<Score> {
   const where = region ?? doc.region ?? null
   const { facts, goal } = await factsAndGoal(speciesKeys(doc), where)
-  return scoreYard(doc, facts, goal, where, memo)
+  return scoreYard(doc, facts, goal, where)
 }

@@ -46,14 +46,14 @@ export function yardSnapshot(doc: Pick<YardDocument, ChangeField | 'areas' | 'pl
   }
 }
 
-function listChanges<T extends { id: string }>(before: Map<string, string>, order: string[], items: T[]): ListChanges<T> | null {
+function listChanges<T extends { id: string }>(before: Map<string, string>, order: string[], items: T[], after: Map<string, string>): ListChanges<T> | null {
   const upsert: T[] = []
   const now = new Set<string>()
   const added: string[] = []
   for (const item of items) {
     now.add(item.id)
     const was = before.get(item.id)
-    if (was === undefined) { upsert.push(item); added.push(item.id) } else if (was !== json(item)) upsert.push(item)
+    if (was === undefined) { upsert.push(item); added.push(item.id) } else if (was !== after.get(item.id)) upsert.push(item)
   }
   const remove = order.filter((id) => !now.has(id))
   // applying puts kept elements in their old order and new ones last; anything else (a reorder) needs the whole list
@@ -65,17 +65,18 @@ function listChanges<T extends { id: string }>(before: Map<string, string>, orde
 
 /**
  * What changed from `snapshot` to `doc`, or null when the change is better sent as the whole document: elements
- * reordered, or so much changed that the changes would be most of the document anyway.
+ * reordered, or so much changed that the changes would be most of the document anyway. `now` is `doc`'s own
+ * snapshot, when the caller keeps it for the next edit (each element is serialised once).
  */
-export function changesSince(snapshot: YardSnapshot, doc: Pick<YardDocument, ChangeField | 'areas' | 'plantings'>): YardChanges | null {
-  const areas = listChanges(snapshot.areas, snapshot.areaOrder, doc.areas)
-  const plantings = areas && listChanges(snapshot.plantings, snapshot.plantingOrder, doc.plantings)
+export function changesSince(snapshot: YardSnapshot, doc: Pick<YardDocument, ChangeField | 'areas' | 'plantings'>, now = yardSnapshot(doc)): YardChanges | null {
+  const areas = listChanges(snapshot.areas, snapshot.areaOrder, doc.areas, now.areas)
+  const plantings = areas && listChanges(snapshot.plantings, snapshot.plantingOrder, doc.plantings, now.plantings)
   if (!areas || !plantings) return null
   const touched = (areas.upsert?.length ?? 0) + (plantings.upsert?.length ?? 0)
   if (touched > 50 && touched > (doc.areas.length + doc.plantings.length) / 2) return null
   const fields: Record<string, unknown> = {}
   for (const f of CHANGE_FIELDS) {
-    if (json(doc[f]) !== snapshot.fields[f]) fields[f] = doc[f] === undefined ? null : doc[f]
+    if (now.fields[f] !== snapshot.fields[f]) fields[f] = doc[f] === undefined ? null : doc[f]
   }
   const out: YardChanges = {}
   if (Object.keys(fields).length) out.fields = fields as YardChanges['fields']
