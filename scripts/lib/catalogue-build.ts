@@ -10,6 +10,7 @@ import {
   USDA, type AreaStatus, type CatalogueEntry, type CharacteristicsRow,
 } from '../../shared/utils/catalogue-rules'
 import { REGIONS } from '../../shared/utils/regions'
+import { withRangeHardiness } from '../../shared/utils/region-zones'
 
 export const CATALOGUE_FORMAT = 'wildward.catalogue/1'
 const NON_VASCULAR = new Set(['Lichen', 'Moss', 'Liverwort', 'Hornwort', 'Green Algae', 'Red Algae', 'Brown Algae'])
@@ -91,7 +92,7 @@ export function buildCatalogueEntries(dataDir: string): BuildResult {
     }
     if (!areaStatus && regionsSeen) fallbackStatus++
     const sources = { ...facts.sources, status: areaStatus ? USDA : `${USDA} (distribution file's species-level status: no native-status row)` }
-    entries.push({
+    entries.push(withRangeHardiness({
       scientificName: name,
       usdaName: (p.scientific_name ?? '').replace(/\s+/g, ' ').trim() || null,
       commonName: p.common_name?.trim() || null,
@@ -104,7 +105,7 @@ export function buildCatalogueEntries(dataDir: string): BuildResult {
       sources,
       noxiousIn,
       regions,
-    })
+    }))
   }
   entries.sort((a, b) => a.scientificName.localeCompare(b.scientificName))
   return { entries, fallbackStatus }

@@ -4,6 +4,7 @@
 // ../shared/data/usda-plants/README.md; the USDA 2023 Plant Hardiness Zone Map for the zone table.
 import type { Layer, Moisture, RegionStatus, Soil, Sun } from '../types/species'
 import { REGIONS } from './regions'
+import { nameKey } from './species-name'
 
 export const USDA = 'USDA PLANTS'
 export const COORDINATOR = 'coordinator'
@@ -125,13 +126,15 @@ export function bareName(withAuthor: string): string {
   const cleaned = withAuthor.replace(/\[[^\]]*\]/g, ' ').replace(/\s+X\s+/g, ' ×').replace(/\s+×\s+/g, ' ×').trim()
   const tokens = cleaned.split(/\s+/)
   const out: string[] = []
-  const genus = tokens[0]
+  // a nothogenus written with a capital X glued on (native-status file: `XAchnella caduca`) is `×Achnella`
+  const genus = tokens[0]?.replace(/^X(?=[A-Z][a-z])/, '×')
   if (!genus) return ''
   out.push(genus)
   const epithet = tokens[1]
   if (epithet && /^×?[a-z][a-z.-]*$/.test(epithet)) out.push(epithet)
   else return out.join(' ')
-  const epithetLike = (t: string | undefined) => !!t && /^×?[a-z][a-z.-]*$/.test(t) && !['ex', 'in', 'et'].includes(t)
+  // a rank word is never an epithet: in `Burm. f. var. diffusa` the `f.` ends the author (filius), not a forma
+  const epithetLike = (t: string | undefined) => !!t && /^×?[a-z][a-z.-]*$/.test(t) && !['ex', 'in', 'et'].includes(t) && !RANK_WORDS.has(t)
   for (let i = 2; i < tokens.length; i++) {
     const t = tokens[i]!
     if ((RANK_WORDS.has(t) || /^×(ssp\.|var\.|f\.)$/.test(t)) && epithetLike(tokens[i + 1])) {
@@ -151,10 +154,8 @@ export function speciesOf(bare: string): string {
   return bare.split(' ').slice(0, 2).join(' ')
 }
 
-/** The key every name lookup uses: lower case, one space, cultivar in quotes dropped, hybrid X as ×. */
-export function nameKey(name: string): string {
-  return name.replace(/'[^']*'|"[^"]*"|‘[^’]*’/g, ' ').replace(/\s+[x×]\s+/gi, ' ×').replace(/\s+/g, ' ').trim().toLowerCase()
-}
+// the one species-name key lives with the search rule; re-exported for the catalogue's callers
+export { nameKey }
 
 // ---------------------------------------------------------------------------------------------------------
 // Layer from growth habit. USDA PLANTS lists several habits per taxon in alphabetical order, so order says
