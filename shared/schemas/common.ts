@@ -3,8 +3,8 @@ import { z } from 'zod'
 /** ISO 3166-2 code of a US state/territory or Canadian province/territory, e.g. US-OH, CA-ON. */
 export const regionCode = z.string().regex(/^(US|CA)-[A-Z]{2}$/, 'Use a state or province code such as US-OH or CA-ON')
 
-/** USDA hardiness zone with half-zone, 1a … 13b. */
-export const hardinessZone = z.string().regex(/^(1[0-3]|[1-9])[ab]$/, 'Use a hardiness zone such as 6a')
+/** USDA hardiness zone with half-zone, the range of the USDA 2023 map: 1a … 13b (other countries' zone maps use other scales). */
+export const hardinessZone = z.string().trim().toLowerCase().regex(/^(1[0-3]|[1-9])[ab]$/, 'Use a USDA hardiness zone from 1a to 13b, such as 6a')
 
 /** A day of the year as MM-DD (frost dates repeat every year). */
 export const monthDay = z.string().regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'Use MM-DD, e.g. 04-28')

@@ -41,6 +41,8 @@ export const fitsQuery = z.object({
   maxSpread: optional(z.coerce.number().positive().max(60)),
   yardId: optional(z.coerce.number().int().positive()),
   limit: optional(z.coerce.number().int().min(1).max(200)),
+  /** the same page of both groups (known fit, site needs not recorded) */
+  page: optional(z.coerce.number().int().min(1).max(1_000)),
 }).refine((q) => q.region || q.yardId, { path: ['region'], message: 'Choose a region (or a yard)' })
 
 export const swapsQuery = z.object({

@@ -94,6 +94,23 @@ describe('names', () => {
     expect(bareName('Cyanea st.-johnii (Hosaka) H. St. John')).toBe('Cyanea st.-johnii')
     expect(bareName('Dicranum scoparium Hedw. f. ex Brid.')).toBe('Dicranum scoparium')
   })
+  it('reads a nothogenus glued to a capital X as the hybrid sign (plant_native_status_codes.csv.gz: "XAchnella caduca")', () => {
+    // plants.csv.gz writes the same taxon "×Achnella caduca (Beal) Barkworth [Achnatherum hymenoides × Nassella viridula]"
+    expect(bareName('XAchnella caduca')).toBe('×Achnella caduca')
+    expect(nameKey(bareName('XAchnella caduca'))).toBe(nameKey(bareName('×Achnella caduca (Beal) Barkworth [Achnatherum hymenoides × Nassella viridula]')))
+    expect(bareName('XAgroelymus adamsii')).toBe('×Agroelymus adamsii')
+    // a genus that merely starts with X is not a hybrid
+    expect(bareName('Xanthium strumarium L.')).toBe('Xanthium strumarium')
+    expect(bareName('Xyris difformis Chapm.')).toBe('Xyris difformis')
+  })
+  it('reads "f." right before a rank word as the end of the author (filius), not a forma (plants.csv.gz rows)', () => {
+    expect(bareName('Commelina diffusa Burm. f. var. diffusa ')).toBe('Commelina diffusa var. diffusa')
+    expect(bareName('Commelina diffusa Burm. f. var. gigas (Small) Faden')).toBe('Commelina diffusa var. gigas')
+    expect(bareName('Carex heleonastes L. f. ssp. neurochlaena (T. Holm) Böcher')).toBe('Carex heleonastes ssp. neurochlaena')
+    expect(bareName('Festuca brachyphylla Schult. ex Schult. & Schult. f. ssp. brachyphylla ')).toBe('Festuca brachyphylla ssp. brachyphylla')
+    // a real forma is kept
+    expect(bareName('Crataegus crus-galli L. f. macra')).toBe('Crataegus crus-galli f. macra')
+  })
   it('makes lookup keys that ignore case, spacing and a quoted cultivar', () => {
     expect(nameKey("Echinacea  purpurea 'Magnus'")).toBe('echinacea purpurea')
     expect(nameKey('Acer x freemanii')).toBe('acer ×freemanii')
