@@ -353,13 +353,13 @@ export async function findSwaps(name: string, c: Omit<FitConditions, 'layer' | '
 // ---------------------------------------------------------------------------------------------------------
 // Coordinator overrides: CSV preview and apply, materializing into the species and region tables
 
-type OverrideRow = Pick<typeof catalogueOverrides.$inferSelect, 'scientificName' | 'region' | 'field' | 'value' | 'source'>
+export type OverrideRow = Pick<typeof catalogueOverrides.$inferSelect, 'scientificName' | 'region' | 'field' | 'value' | 'source'>
 
-function sameValue(a: unknown, b: unknown) {
+export function sameValue(a: unknown, b: unknown) {
   return JSON.stringify(a ?? null) === JSON.stringify(b ?? null)
 }
 
-function currentValue(data: CatalogueSpeciesData, field: OverrideField): unknown {
+export function currentValue(data: CatalogueSpeciesData, field: OverrideField): unknown {
   return (data as unknown as Record<string, unknown>)[field] ?? null
 }
 
@@ -421,16 +421,21 @@ export async function planImport(text: string): Promise<ImportPlan> {
 export async function applyImport(text: string, userId: number) {
   const plan = await planImport(text)
   if (plan.preview.errorCount) return { applied: false as const, preview: plan.preview }
+  await applyOverrides(plan.overrides, userId)
+  return { applied: true as const, preview: plan.preview }
+}
+
+/** Stores the coordinator's overrides and writes them through to the species and region tables, in one transaction. */
+export async function applyOverrides(overrides: OverrideRow[], userId: number) {
   await useDb().transaction(async (tx) => {
-    for (let i = 0; i < plan.overrides.length; i += 1000) {
-      await tx.insert(catalogueOverrides).values(plan.overrides.slice(i, i + 1000).map((o) => ({ ...o, createdBy: userId })))
+    for (let i = 0; i < overrides.length; i += 1000) {
+      await tx.insert(catalogueOverrides).values(overrides.slice(i, i + 1000).map((o) => ({ ...o, createdBy: userId })))
         .onDuplicateKeyUpdate({ set: { value: sql`values(${catalogueOverrides.value})`, source: sql`values(${catalogueOverrides.source})`, createdBy: userId } })
     }
-    await materialize(tx, plan.overrides, (await useCatalogue()).byKey)
+    await materialize(tx, overrides, (await useCatalogue()).byKey)
     await bumpStamp(tx)
   })
   stampCheckedAt = 0
-  return { applied: true as const, preview: plan.preview }
 }
 
 function groupOverrides(rows: OverrideRow[]): Map<string, OverrideRow[]> {

@@ -3,7 +3,7 @@
 import Papa from 'papaparse'
 import { LAYERS, REGION_STATUSES } from '../types/species'
 import { SUN, SOIL, MOISTURE } from '../schemas/yard-document'
-import { CSV_COLUMNS, CSV_READ_ONLY_COLUMNS, IMPORT_MAX_ROWS, type CsvColumn, type ImportError, type OverrideField } from '../schemas/species'
+import { CSV_COLUMNS, CSV_READ_ONLY_COLUMNS, IMPORT_MAX_ROWS, SOURCE_PATTERN, type CsvColumn, type ImportError, type OverrideField } from '../schemas/species'
 import { REGIONS } from './regions'
 import { zoneIndex, roundToCm } from './catalogue-rules'
 
@@ -92,7 +92,7 @@ export interface CsvEntry {
 
 const DATA_COLUMNS = CSV_COLUMNS.filter((c) => c !== 'scientificName' && c !== 'region' && c !== 'source') as OverrideField[]
 const KNOWN = new Set<string>([...CSV_COLUMNS, ...CSV_READ_ONLY_COLUMNS])
-export const SOURCE_PATTERN = /^[\p{L}\p{N} .,;:()'&/+-]{1,120}$/u
+export { SOURCE_PATTERN }
 
 /**
  * Parses and checks the CSV text: unknown columns, a missing scientificName column, bad cells, status without
