@@ -6,11 +6,12 @@ import { gunzipSync } from 'node:zlib'
 import { join } from 'node:path'
 import Papa from 'papaparse'
 import {
-  bareName, deriveFacts, parseNativeStatus, parseNoxiousStates, regionCodeForStateName, regionStatus, nameKey,
+  bareName, deriveFacts, parseNativeStatus, parseNoxiousStates, regionCodeForStateName, regionStatus,
   USDA, type AreaStatus, type CatalogueEntry, type CharacteristicsRow,
 } from '../../shared/utils/catalogue-rules'
 import { REGIONS } from '../../shared/utils/regions'
 import { withRangeHardiness } from '../../shared/utils/region-zones'
+import { nameKey } from '../../shared/utils/species-name'
 
 export const CATALOGUE_FORMAT = 'wildward.catalogue/1'
 const NON_VASCULAR = new Set(['Lichen', 'Moss', 'Liverwort', 'Hornwort', 'Green Algae', 'Red Algae', 'Brown Algae'])

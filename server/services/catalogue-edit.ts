@@ -21,5 +21,5 @@ export async function editSpecies(name: string, body: SpeciesEditBody, userId: n
     if (from !== body.status) overrides.push({ scientificName, region: body.region, field: 'status', value: body.status, source: body.source })
   }
   if (overrides.length) await applyOverrides(overrides, userId)
-  return { scientificName, changed: overrides.map((o) => o.field) }
+  return { scientificName, changed: overrides.map((o) => o.field as OverrideField) }
 }

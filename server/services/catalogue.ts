@@ -8,7 +8,7 @@ import { format as formatSql } from 'mysql2'
 import { appMeta, catalogueOverrides, catalogueRegions, catalogueSpecies, type CatalogueSpeciesData } from '../database/schema'
 import type { Layer, RegionStatus, SpeciesDetails, SpeciesFacts } from '#shared/types/species'
 import {
-  COORDINATOR, USDA, nameKey, speciesOf, zoneIndex, refreshEstimates, type CatalogueEntry,
+  COORDINATOR, USDA, speciesOf, zoneIndex, refreshEstimates, type CatalogueEntry,
 } from '#shared/utils/catalogue-rules'
 import { readCatalogueCsv, catalogueToCsv } from '#shared/utils/catalogue-csv'
 import {
@@ -18,7 +18,7 @@ import {
 import { REGIONS } from '#shared/utils/regions'
 import { buildSearchIndex, buildTableIndex, namedMask, searchPage, tablePage, type CachedSpecies, type SearchIndex, type TableIndex } from './catalogue-index'
 import { buildRegionFits, rankFits, rankSwaps, type FitConditions, type FitItem, type FitsAnswer, type RegionFits, type YardContext } from './catalogue-fits'
-import { compareNames } from '#shared/utils/species-name'
+import { compareNames, nameKey } from '#shared/utils/species-name'
 
 export { BLOOM_SEASON } from './catalogue-fits'
 export type { CachedSpecies } from './catalogue-index'

@@ -154,9 +154,6 @@ export function speciesOf(bare: string): string {
   return bare.split(' ').slice(0, 2).join(' ')
 }
 
-// the one species-name key lives with the search rule; re-exported for the catalogue's callers
-export { nameKey }
-
 // ---------------------------------------------------------------------------------------------------------
 // Layer from growth habit. USDA PLANTS lists several habits per taxon in alphabetical order, so order says
 // nothing; USDA's own definitions separate tree from shrub at about 4 to 5 m (13 to 16 ft), single stem.

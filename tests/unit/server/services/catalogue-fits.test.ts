@@ -6,7 +6,8 @@ import { gunzipSync } from 'node:zlib'
 import { join } from 'node:path'
 import { buildRegionFits, rankFits, rankSwaps, UNRECORDED_REASON, type FitConditions } from '../../../../server/services/catalogue-fits'
 import type { CachedSpecies } from '../../../../server/services/catalogue-index'
-import { nameKey, zoneIndex, type CatalogueEntry } from '#shared/utils/catalogue-rules'
+import { zoneIndex, type CatalogueEntry } from '#shared/utils/catalogue-rules'
+import { nameKey } from '#shared/utils/species-name'
 import type { RegionStatus } from '#shared/types/species'
 
 const ROOT = join(import.meta.dirname, '..', '..', '..', '..')

@@ -8,7 +8,8 @@ import { join } from 'node:path'
 import {
   buildSearchIndex, buildTableIndex, namedMask, nameHits, searchPage, tablePage, type CachedSpecies, type SpeciesTableQuery, type TableSort,
 } from '../../../../server/services/catalogue-index'
-import { nameKey, zoneIndex, type CatalogueEntry } from '#shared/utils/catalogue-rules'
+import { zoneIndex, type CatalogueEntry } from '#shared/utils/catalogue-rules'
+import { nameKey } from '#shared/utils/species-name'
 import type { Layer, RegionStatus } from '#shared/types/species'
 
 const ROOT = join(import.meta.dirname, '..', '..', '..', '..')

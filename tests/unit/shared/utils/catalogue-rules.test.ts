@@ -2,10 +2,11 @@
 import { describe, it, expect } from 'vitest'
 import {
   zoneFromMinTemperatureF, zoneIndex, zoneName, parseNativeStatus, regionStatus, usdaAreaForRegion, regionCodeForStateName,
-  parseNoxiousStates, bareName, nameKey, speciesOf, layerFromHabit, sunFromShadeTolerance, moistureFrom, soilFromTextures,
+  parseNoxiousStates, bareName, speciesOf, layerFromHabit, sunFromShadeTolerance, moistureFrom, soilFromTextures,
   bloomMonthsFrom, toxicityFrom, numberOrNull, defaultSpreadM, defaultSpacingM, defaultColdMoistDays, defaultSeedNeedsLight,
   defaultSeedCoat, defaultSeedlingsPerPot, isLawnSpecies, deriveFacts, refreshEstimates, USDA,
 } from '#shared/utils/catalogue-rules'
+import { nameKey } from '#shared/utils/species-name'
 
 describe('hardiness zone from minimum temperature (USDA 2023 Plant Hardiness Zone Map table)', () => {
   // USDA 2023 map legend: 3b is −35 to −30 °F, 6a −10 to −5 °F, 7a 0 to 5 °F; lower bound inclusive is our stated assumption
