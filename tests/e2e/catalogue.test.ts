@@ -1,6 +1,6 @@
 // The species table (search, filter, sort, paging) and the Find plants page in Chromium, loopback only.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest'
-import { launch, newContext, outsideRequests, type Browser } from '../support/browser'
+import { launch, newContext, outsideRequests, signIn, type Browser } from '../support/browser'
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
@@ -115,5 +115,43 @@ describe('species search as you type in an Ohio yard', () => {
     await page.screenshot({ path: '.data/search-ohio.png' })
     expect(outsideRequests(requests)).toEqual([])
     await context.close()
+  })
+})
+
+describe('a coordinator corrects one species in a form', () => {
+  it('shows a bad value beside its field, keeps what was typed, then saves and shows the source on the species page', async () => {
+    for (const viewport of [{ width: 1280, height: 800 }, { width: 768, height: 1024 }]) {
+      const { context, requests } = await newContext(browser, { viewport })
+      const page = await context.newPage()
+      await signIn(page, 'coordinator@example.org')
+      await page.goto('/species/Zizia%20aurea')
+      await page.getByTestId('edit-species').click()
+      await page.waitForURL(/\/admin\/species\//)
+      const form = page.getByTestId('species-edit')
+      await form.waitFor()
+      await page.getByLabel('Mature height (m)').fill('0.7')
+      await page.getByRole('button', { name: 'Save changes' }).click()
+      // no source named: the shared schema refuses it beside the field, and the height stays as typed
+      await expect.poll(() => page.locator('#ed-source-error').textContent()).toMatch(/Name the source/)
+      expect(await page.getByLabel('Mature height (m)').inputValue()).toBe('0.7')
+      await page.screenshot({ path: `.data/species-edit-${viewport.width}.png`, fullPage: true })
+      await page.getByLabel('Where these values come from').fill(`regional list check ${viewport.width}`)
+      await page.getByRole('button', { name: 'Save changes' }).click()
+      await expect.poll(() => page.getByRole('status').textContent()).toMatch(/Saved 1 change|Nothing had changed/)
+      await page.goto('/species/Zizia%20aurea')
+      await expect.poll(() => page.locator('[data-source=height]').textContent()).toMatch(/your organization's list/)
+      expect(outsideRequests(requests)).toEqual([])
+      await context.close()
+    }
+  })
+  it('shows find plants with both groups, legibly, on a desktop and a tablet', async () => {
+    for (const viewport of [{ width: 1280, height: 800 }, { width: 1024, height: 768 }, { width: 768, height: 1024 }]) {
+      const { context } = await newContext(browser, { viewport })
+      const page = await context.newPage()
+      await page.goto('/find-plants')
+      await expect.poll(() => page.getByTestId('fits-unrecorded').locator('li.card').count()).toBeGreaterThan(0)
+      await page.screenshot({ path: `.data/find-plants-${viewport.width}.png` })
+      await context.close()
+    }
   })
 })

@@ -136,14 +136,27 @@ describe('fits keep natives without USDA traits (US-OH, zone 6a)', () => {
     const yards = (await homeowner.get('/api/yards')).body
     const list = Array.isArray(yards) ? yards : yards.items
     expect(list.length).toBeGreaterThan(0)
+    let beds = 0
     for (const y of list) {
-      const r = await homeowner.get(`/api/fits?yardId=${y.id}&zone=6a&sun=full&soil=loam&moisture=medium&limit=12`)
-      expect(r.status).toBe(200)
-      expect(r.body.items.length).toBeGreaterThan(0)
-      expect(r.body.unrecorded.length).toBeGreaterThan(0)
-      expect(r.body.unrecorded[0].fit).toBe('unrecorded')
-      expect(r.body.unrecorded[0].reasons[0]).toMatch(/^Site needs not recorded — check your regional list/)
+      const yard = (await homeowner.get(`/api/yards/${y.id}`)).body
+      // each bed as the editor's fits panel asks for it: its sun, soil and moisture, and its narrower side as room
+      for (const bed of yard.document.areas.filter((a: any) => a.kind === 'bed')) {
+        const xs = bed.points.map((p: number[]) => p[0])
+        const ys = bed.points.map((p: number[]) => p[1])
+        const room = Math.min(Math.max(...xs) - Math.min(...xs), Math.max(...ys) - Math.min(...ys))
+        const cond = Object.entries({ sun: bed.sun, soil: bed.soil, moisture: bed.moisture }).filter(([, v]) => v).map(([k, v]) => `&${k}=${v}`).join('')
+        const r = await homeowner.get(`/api/fits?yardId=${y.id}${cond}&maxSpread=${room.toFixed(2)}&limit=8`)
+        expect(r.status).toBe(200)
+        expect(r.body.items.length, bed.label).toBeGreaterThan(0)
+        expect(r.body.unrecorded.length, bed.label).toBeGreaterThan(0)
+        for (const i of r.body.unrecorded) {
+          expect(i.fit).toBe('unrecorded')
+          expect(i.reasons.some((x: string) => x.startsWith('Site needs not recorded — check your regional list')), i.scientificName).toBe(true)
+        }
+        beds++
+      }
     }
+    expect(beds).toBeGreaterThan(0)
   })
   it('names the source of each fact and gives a score out of 100', async () => {
     const r = await anon.get('/api/fits?region=US-OH&zone=6a&layer=ground&limit=200')
