@@ -348,7 +348,17 @@ export const useEditorViewStore = defineStore('editor-view', () => {
   const plantChoice = ref<PlantChoice>({ species: null })
   const score = shallowRef<ScoreResult | null>(null)
   const scoreState = ref<'idle' | 'scoring' | 'unavailable' | 'error'>('idle')
-  const statusById = computed(() => new Map((score.value?.plantings ?? []).map((p) => [p.id, p])))
+  // the same map while no planting's line changed, so a drag that moves a plant within the lot redraws nothing else
+  let lastLines = new Map<string, Score['plantings'][number]>()
+  const statusById = computed(() => {
+    const lines = score.value?.plantings ?? []
+    const same = lines.length === lastLines.size && lines.every((l) => {
+      const o = lastLines.get(l.id)
+      return o !== undefined && o.status === l.status && o.layer === l.layer && o.count === l.count && o.area === l.area && o.volume === l.volume && o.cultivar === l.cultivar
+    })
+    if (!same) lastLines = new Map(lines.map((p) => [p.id, p]))
+    return lastLines
+  })
   const message = ref<{ text: string; kind: 'info' | 'error' } | null>(null)
   let timer: ReturnType<typeof setTimeout> | undefined
   function say(text: string, kind: 'info' | 'error' = 'info') {
@@ -358,7 +368,9 @@ export const useEditorViewStore = defineStore('editor-view', () => {
   }
   // advisors' pins from site visits, drawn over the plan (not part of the document)
   const pins = shallowRef<VisitPin[]>([])
-  return { tool, shape, snapping, plantChoice, score, scoreState, statusById, message, say, pins }
+  // while elements are dragged: where they are now (not yet in the document), so the score can follow
+  const dragPreview = shallowRef<Map<string, { x?: number; y?: number; spread?: number; points?: Point[] }> | null>(null)
+  return { tool, shape, snapping, plantChoice, score, scoreState, statusById, message, say, pins, dragPreview }
 })
 
 export interface VisitPin { id: number; x: number; y: number; comment: string }

@@ -1,6 +1,7 @@
 // The coordinator's dashboard for a drive: each figure is one aggregate query over the pledges' indexed
 // columns (never a loop over yards). Only pledges whose households consented count, and no row names a yard,
 // its address or its owner.
+import { GOAL_TOLERANCE } from '#shared/utils/score/goal'
 import { and, eq, gte, lte, asc, desc, like, sql, type SQL } from 'drizzle-orm'
 import { drives, pledges, shareSnapshots, driveSummaries, driveViewCache, type DriveRow } from '../database/schema'
 import type { PledgesQuery } from '#shared/schemas/drives'
@@ -118,10 +119,12 @@ export async function driveProgress(drive: DriveRow) {
   const end = drive.endsOn < today() ? drive.endsOn : today()
   const snapCol = drive.certifies === 'count' ? shareSnapshots.countShare : drive.certifies === 'area' ? shareSnapshots.areaShare : shareSnapshots.volumeShare
   const goal = Number(drive.goal)
+  // meetsGoal in SQL: at or above the goal, less the same rounding tolerance
+  const atGoal = goal - GOAL_TOLERANCE
   const [changes] = await db.execute(sql`
     SELECT d.day AS day, SUM(d.delta) AS delta FROM (
       SELECT ${shareSnapshots.day} AS day,
-        (${snapCol} >= ${goal}) - COALESCE(LAG(${snapCol} >= ${goal}) OVER (PARTITION BY ${shareSnapshots.yardId} ORDER BY ${shareSnapshots.day}), 0) AS delta
+        (${snapCol} >= ${atGoal}) - COALESCE(LAG(${snapCol} >= ${atGoal}) OVER (PARTITION BY ${shareSnapshots.yardId} ORDER BY ${shareSnapshots.day}), 0) AS delta
       FROM ${shareSnapshots} JOIN ${pledges} ON ${pledges.yardId} = ${shareSnapshots.yardId}
       WHERE ${pledges.driveId} = ${drive.id} AND ${pledges.consent} = 1 AND ${shareSnapshots.day} >= ${pledges.pledgedOn} AND ${shareSnapshots.day} <= ${end}
     ) d GROUP BY d.day`) as unknown as [Array<{ day: string | Date; delta: unknown }>]

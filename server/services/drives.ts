@@ -4,9 +4,9 @@ import { and, eq, gte, lte, desc, inArray, sql } from 'drizzle-orm'
 import { drives, pledges, shareSnapshots, driveMailings, driveMailDeliveries, driveSummaries, yards, users, organisation, type DriveRow, type PledgeRow } from '../database/schema'
 import type { YardDocument } from '#shared/schemas/yard-document'
 import type { ShareSet } from '#shared/schemas/advice'
-import type { AccountRow, YardRow } from '../utils/auth'
-import { scoreDocument, measureYard, factsKey } from './scoring'
-import { loadSpeciesFacts } from './species-lookup'
+import type { AccountRow, YardRow } from '../database/schema'
+import { GOAL_TOLERANCE, measureYard, meetsGoal, sharesOf, tallyYard } from '#shared/utils/score'
+import { yardFacts } from './scoring'
 import { enqueueJobs, jobProgress } from './jobs'
 
 export type ShareKind = 'count' | 'area' | 'volume'
@@ -21,11 +21,10 @@ export async function bumpDriveVersion(driveId: number) {
 
 /** The shares of a document as the score engine gives them, plus the visible lawn area (m²). */
 export async function yardShares(doc: YardDocument, region: string): Promise<{ shares: ShareSet; lawnArea: number }> {
-  const score = await scoreDocument(doc, region)
-  const names = new Set(doc.plantings.flatMap((p) => (p.species ? [factsKey(p.species)] : [])))
-  const facts = names.size ? await loadSpeciesFacts(names, region) : new Map()
-  const lawnArea = measureYard(doc, facts, region).plantings.filter((p) => p.lawn).reduce((s, p) => s + p.area, 0)
-  return { shares: score.shares, lawnArea }
+  const measured = measureYard(doc, await yardFacts(doc, region), region)
+  const lawnArea = measured.plantings.filter((p) => p.lawn).reduce((s, p) => s + p.area, 0)
+  const tally = tallyYard(measured.plantings)
+  return { shares: sharesOf(tally.native, tally.total), lawnArea }
 }
 
 /** The share columns kept on a pledge and a snapshot (a share with nothing to share is stored as 0). */
@@ -43,7 +42,7 @@ export const shareColumn = (kind: ShareKind) => (kind === 'count' ? pledges.coun
 function statusFor(drive: DriveRow, current: PledgeRow['status'] | null, cols: ReturnType<typeof shareColumns>): PledgeRow['status'] {
   if (current === 'verified') return 'verified'
   const share = drive.certifies === 'count' ? cols.countShare : drive.certifies === 'area' ? cols.areaShare : cols.volumeShare
-  return share >= Number(drive.goal) ? 'reached' : 'pledged'
+  return meetsGoal(share, Number(drive.goal)) ? 'reached' : 'pledged'
 }
 
 export async function runningDrive(): Promise<DriveRow | null> {
@@ -86,7 +85,7 @@ export async function updateDrive(id: number, input: DriveInput) {
   await db.update(drives).set(input).where(eq(drives.id, id))
   const col = shareColumn(input.certifies)
   await db.update(pledges).set({
-    status: sql`CASE WHEN ${pledges.status} = 'verified' THEN 'verified' WHEN ${col} >= ${input.goal} THEN 'reached' ELSE 'pledged' END`,
+    status: sql`CASE WHEN ${pledges.status} = 'verified' THEN 'verified' WHEN ${col} >= ${input.goal - GOAL_TOLERANCE} THEN 'reached' ELSE 'pledged' END`,
   }).where(eq(pledges.driveId, id))
   await bumpDriveVersion(id)
   return driveView(await requireDrive(id))

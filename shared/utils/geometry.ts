@@ -1,4 +1,4 @@
-// Footprint geometry for the score: circles as polygons, clipping to the lot, cutting the ground layer by
+// Footprint geometry for the score: circles in the lot (exact), clipping outlines to the lot, cutting the ground layer by
 // what is drawn above it. Exact analytic answers first (a shape wholly inside or wholly apart); polygon-clipping
 // only where shapes really cross. Points are [x, y] in metres, y down.
 import polygonClipping from 'polygon-clipping'
@@ -8,35 +8,45 @@ export type Polygon = Ring[]
 export type MultiPolygon = Polygon[]
 export interface Box { minX: number; minY: number; maxX: number; maxY: number }
 
-/** Sides of a circle drawn as a polygon: 96 keeps the inscribed polygon's area error at 0.071 % (< 0.1 %). */
-export const CIRCLE_SEGMENTS = 96
-
-// the polygon's vertices sit a little outside the circle so that its area equals πr² exactly
-const CIRCLE_AREA_SCALE = Math.sqrt((2 * Math.PI / CIRCLE_SEGMENTS) / Math.sin(2 * Math.PI / CIRCLE_SEGMENTS))
-let unitCircle: Ring | null = null
-function unitCircleRing(): Ring {
-  if (!unitCircle) {
-    unitCircle = Array.from({ length: CIRCLE_SEGMENTS }, (_, i): Point => {
-      const a = (2 * Math.PI * i) / CIRCLE_SEGMENTS
-      return [Math.cos(a) * CIRCLE_AREA_SCALE, Math.sin(a) * CIRCLE_AREA_SCALE]
-    })
-  }
-  return unitCircle
+/** A circle as an n-sided polygon of the same area (for tests and drawings; the score measures circles exactly). */
+export function circleRing(cx: number, cy: number, r: number, sides = 96): Ring {
+  // the vertices sit a little outside the circle so that the polygon's area equals πr²
+  const scale = Math.sqrt((2 * Math.PI / sides) / Math.sin(2 * Math.PI / sides))
+  return Array.from({ length: sides }, (_, i): Point => {
+    const a = (2 * Math.PI * i) / sides
+    return [cx + Math.cos(a) * scale * r, cy + Math.sin(a) * scale * r]
+  })
 }
 
-const circleCache = new Map<string, Ring>()
-const CIRCLE_CACHE_LIMIT = 20_000
+// signed area of the disc of radius r about the origin inside the triangle (origin, a, b): the sector pieces
+// where the edge a→b runs outside the circle, the triangle piece where it runs inside
+function discInTriangle(ax: number, ay: number, bx: number, by: number, r: number): number {
+  const sector = (ux: number, uy: number, vx: number, vy: number) => (r * r / 2) * Math.atan2(ux * vy - uy * vx, ux * vx + uy * vy)
+  const dx = bx - ax
+  const dy = by - ay
+  const A = dx * dx + dy * dy
+  if (A === 0) return 0
+  const B = ax * dx + ay * dy
+  const C = ax * ax + ay * ay - r * r
+  const disc = B * B - A * C
+  if (disc <= 0) return sector(ax, ay, bx, by)
+  const s = Math.sqrt(disc)
+  const t1 = Math.max(0, (-B - s) / A)
+  const t2 = Math.min(1, (-B + s) / A)
+  if (t1 >= t2) return sector(ax, ay, bx, by)
+  const p1x = ax + t1 * dx, p1y = ay + t1 * dy, p2x = ax + t2 * dx, p2y = ay + t2 * dy
+  return sector(ax, ay, p1x, p1y) + (p1x * p2y - p1y * p2x) / 2 + sector(p2x, p2y, bx, by)
+}
 
-/** A circle as a 96-sided polygon of the same area (cached: the editor re-scores the same circles often). */
-export function circleRing(cx: number, cy: number, r: number): Ring {
-  const key = `${cx},${cy},${r}`
-  let ring = circleCache.get(key)
-  if (!ring) {
-    ring = unitCircleRing().map(([ux, uy]): Point => [cx + ux * r, cy + uy * r])
-    if (circleCache.size >= CIRCLE_CACHE_LIMIT) circleCache.clear()
-    circleCache.set(key, ring)
+/** Exact area of a disc inside a simple polygon: the signed sum over its edges of disc ∩ triangle(centre, edge). */
+export function circleRingArea(cx: number, cy: number, r: number, ring: Ring): number {
+  let sum = 0
+  for (let i = 0, n = ring.length; i < n; i++) {
+    const a = ring[i]!
+    const b = ring[(i + 1) % n]!
+    sum += discInTriangle(a[0] - cx, a[1] - cy, b[0] - cx, b[1] - cy, r)
   }
-  return ring
+  return Math.min(Math.PI * r * r, Math.abs(sum))
 }
 
 export function multiPolygonArea(mp: MultiPolygon): number {
@@ -235,7 +245,7 @@ export function circleAreaInLot(cx: number, cy: number, r: number, lot: Shape | 
   const full = Math.PI * r * r
   if (!lot || circleInside(cx, cy, r, lot)) return full
   if (circleApart(cx, cy, r, lot)) return 0
-  return multiPolygonArea(clip.intersection([circleRing(cx, cy, r)], [lot.ring]))
+  return circleRingArea(cx, cy, r, lot.ring)
 }
 
 /** The part of a ring inside the lot, as a multipolygon, and its area. */
@@ -356,7 +366,7 @@ export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[], prep
     if (g) g.push(c)
     else groups.set(r, [c])
   })
-  const hard: Ring[] = []
+  const hard: Cutter[][] = []
   let subtract = 0
   for (const group of groups.values()) {
     // a cutter inside another of its group adds nothing to the group's cover (a drift in its bed)
@@ -364,12 +374,14 @@ export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[], prep
     if (kept.length === 1 && inLot.whole && ringInside(kept[0]!.ring, kept[0]!.box, self)) subtract += kept[0]!.area
     // convex pieces on a convex shape: |S ∩ U| = |S| + |U| − |S ∪ U|, all unions of convex outlines
     else if (inLot.whole && self.convex && kept.every((c) => c.convex)) subtract += self.area + convexUnionArea(kept) - convexUnionArea([self, ...kept])
-    else hard.push(...kept.map((c) => c.ring))
+    else hard.push(kept)
   }
-  if (hard.length) {
-    const [first, ...rest] = hard.map((r) => [r] as Polygon)
-    const covered = clip.intersection(inLot.geom, clip.union(first!, ...rest))
-    subtract += multiPolygonArea(covered)
+  // groups share no interior, so each is clipped on its own: the clipper's cost grows faster than its input
+  for (const kept of hard) {
+    const [first, ...rest] = kept.map((c) => [c.ring] as Polygon)
+    const union = rest.length ? clip.union(first!, ...rest) : [first!]
+    const inside = inLot.whole && kept.every((c) => ringInside(c.ring, c.box, self))
+    subtract += multiPolygonArea(inside ? union : clip.intersection(inLot.geom, union))
   }
   return { area: Math.max(0, inLot.area - subtract), inLot: inLot.area }
 }
