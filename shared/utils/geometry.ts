@@ -3,6 +3,7 @@
 // only where shapes really cross. Points are [x, y] in metres, y down.
 import polygonClipping from 'polygon-clipping'
 import { ringArea, pointInRing, segmentsIntersect, type Point, type Ring } from './polygon'
+import { clipConvex, triangulate } from './convex-pieces'
 
 export type Polygon = Ring[]
 export type MultiPolygon = Polygon[]
@@ -114,7 +115,11 @@ export function distanceToRing(p: Point, ring: Ring): number {
 
 /** A shape prepared once for many containment tests: the lot, or a ground planting's outline. */
 /** `rect`: an axis-aligned rectangle, for which the box says everything. */
-export interface Shape { ring: Ring; box: Box; convex: boolean; rect: boolean; area: number; sign: number }
+export interface Shape {
+  ring: Ring; box: Box; convex: boolean; rect: boolean; area: number; sign: number
+  /** convex pieces, worked out on first use (see `convexPieces`) */
+  pieces?: Shape[] | null
+}
 
 function isBoxRing(ring: Ring, box: Box): boolean {
   if (ring.length !== 4) return false
@@ -338,18 +343,76 @@ function edgeInConvex(p: Point, q: Point, ex: number, ey: number, B: Shape): [nu
 export type Cutter = Shape
 export const cutterOf = shapeOf
 
+/** The shape as convex pieces with disjoint interiors (itself when convex); null when it cannot be cut. */
+export function convexPieces(s: Shape): Shape[] | null {
+  if (s.pieces === undefined) {
+    const triangles = s.convex ? null : triangulate(s.ring)
+    s.pieces = s.convex ? [s] : triangles ? triangles.map(shapeOf) : null
+  }
+  return s.pieces
+}
+
+/** Convex pieces of the shape's part inside the lot; null when either cannot be cut into convex pieces. */
+export function piecesInLot(s: Shape, lot: Shape | null): Shape[] | null {
+  const own = convexPieces(s)
+  if (!own || !lot || ringInside(s.ring, s.box, lot)) return own
+  if (ringsApart(s, lot)) return []
+  const lotPieces = convexPieces(lot)
+  if (!lotPieces) return null
+  const out: Shape[] = []
+  for (const p of own) {
+    for (const l of lotPieces) {
+      if (!boxesOverlap(p.box, l.box)) continue
+      const part = clipConvex(p.ring, l.ring)
+      if (part) out.push(shapeOf(part))
+    }
+  }
+  return out
+}
+
+/** Area of an outline inside the lot. */
+export function areaInLot(s: Shape, lot: Shape | null): number {
+  const pieces = piecesInLot(s, lot)
+  return pieces ? pieces.reduce((sum, p) => sum + p.area, 0) : ringInLot(s.ring, lot, s).area
+}
+
 /**
  * Visible area of a ground-layer shape: its part inside the lot, less everything drawn above it (`above`).
- * Cutters that overlap nothing else are subtracted exactly (a cutter inside another counts once, as the outer
- * one); only groups of cutters that really cross each other or the outline go to polygon-clipping.
+ * Every outline is cut into convex pieces, so each covered part is |P ∩ U| = |P| + |U| − |P ∪ U| for a convex
+ * piece P of the shape and the union U of the cutters' pieces near it, all unions of convex outlines (exact).
+ * Groups of cutters that overlap nothing else are handled apart; a cutter inside another counts once.
  */
 export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[], prepared?: Shape): { area: number; inLot: number } {
   const self = prepared ?? shapeOf(ring)
-  const inLot = ringInLot(ring, lot, self)
-  if (inLot.area === 0) return { area: 0, inLot: 0 }
+  const pieces = piecesInLot(self, lot)
+  if (!pieces) return visibleAreaByClipping(ring, lot, above, self)
+  let inLot = 0
+  for (const p of pieces) inLot += p.area
+  if (inLot === 0) return { area: 0, inLot: 0 }
   const near = above.filter((c) => boxesOverlap(c.box, self.box) && !ringsApart(c, self))
-  if (!near.length) return { area: inLot.area, inLot: inLot.area }
-  // group the cutters that overlap each other: union-find over pairs, swept in x so far-apart pairs are skipped
+  if (!near.length) return { area: inLot, inLot }
+  const whole = pieces.length === 1 && pieces[0] === self
+  let subtract = 0
+  for (const group of overlapGroups(near).values()) {
+    const kept = keptOf(group)
+    if (kept.length === 1 && whole && ringInside(kept[0]!.ring, kept[0]!.box, self)) { subtract += kept[0]!.area; continue }
+    const cut: Shape[] = []
+    for (const c of kept) {
+      const cp = convexPieces(c)
+      if (!cp) return visibleAreaByClipping(ring, lot, above, self)
+      for (const x of cp) cut.push(x)
+    }
+    for (const p of pieces) {
+      // only the cutter pieces that reach this piece can cover it
+      const reach = cut.filter((c) => boxesOverlap(c.box, p.box))
+      if (reach.length) subtract += p.area + convexUnionArea(reach) - convexUnionArea([p, ...reach])
+    }
+  }
+  return { area: Math.max(0, inLot - subtract), inLot }
+}
+
+// the cutters in groups that overlap each other: union-find over pairs, swept in x so far-apart pairs are skipped
+function overlapGroups(near: Cutter[]): Map<number, Cutter[]> {
   near.sort((a, b) => a.box.minX - b.box.minX)
   const parent = near.map((_, i) => i)
   const find = (i: number): number => (parent[i] === i ? i : (parent[i] = find(parent[i]!)))
@@ -366,11 +429,24 @@ export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[], prep
     if (g) g.push(c)
     else groups.set(r, [c])
   })
+  return groups
+}
+
+// a cutter inside another of its group adds nothing to the group's cover (a drift in its bed)
+const keptOf = (group: Cutter[]) => group.filter((c, i) => !group.some((o, j) => j !== i && o.convex && ringInside(c.ring, c.box, o) && !(j > i && ringInside(o.ring, o.box, c))))
+
+// the visible area through polygon-clipping: for outlines that cannot be cut into convex pieces
+function visibleAreaByClipping(ring: Ring, lot: Shape | null, above: Cutter[], prepared?: Shape): { area: number; inLot: number } {
+  const self = prepared ?? shapeOf(ring)
+  const inLot = ringInLot(ring, lot, self)
+  if (inLot.area === 0) return { area: 0, inLot: 0 }
+  const near = above.filter((c) => boxesOverlap(c.box, self.box) && !ringsApart(c, self))
+  if (!near.length) return { area: inLot.area, inLot: inLot.area }
+  const groups = overlapGroups(near)
   const hard: Cutter[][] = []
   let subtract = 0
   for (const group of groups.values()) {
-    // a cutter inside another of its group adds nothing to the group's cover (a drift in its bed)
-    const kept = group.filter((c, i) => !group.some((o, j) => j !== i && o.convex && ringInside(c.ring, c.box, o) && !(j > i && ringInside(o.ring, o.box, c))))
+    const kept = keptOf(group)
     if (kept.length === 1 && inLot.whole && ringInside(kept[0]!.ring, kept[0]!.box, self)) subtract += kept[0]!.area
     // convex pieces on a convex shape: |S ∩ U| = |S| + |U| − |S ∪ U|, all unions of convex outlines
     else if (inLot.whole && self.convex && kept.every((c) => c.convex)) subtract += self.area + convexUnionArea(kept) - convexUnionArea([self, ...kept])

@@ -3,7 +3,7 @@
 import { isAreaPlanting, type YardDocument, type YardPlanting } from '../../schemas/yard-document'
 import type { Layer, PlantingStatus, SpeciesFacts } from '../../types/species'
 import type { ScoreWarning } from '../../schemas/score'
-import { circleAreaInLot, shapeOf, visibleArea, ringInLot, type Cutter, type Shape } from '../geometry'
+import { areaInLot, circleAreaInLot, shapeOf, visibleArea, type Cutter, type Shape } from '../geometry'
 import { pointInRing, type Ring } from '../polygon'
 import { plantsNeeded } from '../plant-count'
 import { regionName } from '../regions'
@@ -203,7 +203,7 @@ export function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts 
   if (isAreaPlanting(p)) {
     const spacing = p.spacing !== undefined ? p.spacing : f ? f.spacing : null
     const ring = p.points as Ring
-    const area = layer === 'ground' ? visibleArea(ring, lot, ctx.above ?? [], ctx.own).area : ringInLot(ring, lot).area
+    const area = layer === 'ground' ? visibleArea(ring, lot, ctx.above ?? [], ctx.own).area : areaInLot(ctx.own ?? shapeOf(ring), lot)
     if (area === 0) warnings.push({ id: p.id, message: layer === 'ground' ? `${name} is outside the lot or wholly covered by shapes drawn above it, so it counts nothing` : `${name} is outside the lot, so it counts nothing` })
     return { index, id: p.id, name, nameKey, status, layer, isArea: true, lawn: f?.lawn === true, cultivar, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height, spread: null, height, spacing }
   }

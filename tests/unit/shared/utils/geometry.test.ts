@@ -142,6 +142,22 @@ describe('ground-layer cutting', () => {
     expect(visibleArea(rect(0, 0, 20, 20), l, cutters.map(cutterOf)).area).toBeCloseTo(expected, 9)
   })
 
+  it('measures concave outlines, cutters and lots through convex pieces as polygon-clipping does (random yards)', () => {
+    // L-shapes and triangles at random on a coarse grid: the visible area of a concave ground shape in a concave
+    // lot, under concave cutters, against polygon-clipping's own difference and intersection
+    const g = fc.integer({ min: 0, max: 14 })
+    const lShape = fc.tuple(g, g, fc.integer({ min: 2, max: 6 }), fc.integer({ min: 2, max: 6 })).map(([x, y, w, h]): Ring => [[x, y], [x + w, y], [x + w, y + h / 2], [x + w / 2, y + h / 2], [x + w / 2, y + h], [x, y + h]])
+    const outline = fc.oneof(lShape, fc.tuple(g, g, fc.integer({ min: 1, max: 5 }), fc.integer({ min: 1, max: 5 })).map(([x, y, w, h]) => rect(x, y, w, h)))
+    fc.assert(fc.property(lShape, fc.array(outline, { maxLength: 6 }), fc.boolean(), (ground, cutters, concaveLot) => {
+      const lotRing = concaveLot ? L_LOT : rect(0, 0, 12, 12)
+      let expected = 0
+      try {
+        expected = pcArea(polygonClipping.difference(polygonClipping.intersection([ground] as never, [lotRing] as never), ...cutters.map((c) => [c] as never)))
+      } catch { fc.pre(false) }
+      expect(visibleArea(ground, shapeOf(lotRing), cutters.map(cutterOf)).area).toBeCloseTo(expected, 6)
+    }), { numRuns: 300 })
+  })
+
   it('tells inside and apart only when sure', () => {
     const square = shapeOf(rect(0, 0, 4, 4))
     expect(ringInside(rect(0, 0, 2, 2), boxOf(rect(0, 0, 2, 2)), square)).toBe(true)
