@@ -16,6 +16,7 @@ import {
   type OverrideField, type SpeciesListQuery,
 } from '#shared/schemas/species'
 import { REGIONS } from '#shared/utils/regions'
+import { sowFreshOf } from '#shared/utils/seed-fresh'
 import {
   Lru, PRINTABLE_ASCII, buildRegionFits, buildSearchIndex, buildTableIndex, collatedChars, isPlainAscii, likeMatches, likeTableFoldsAsciiCase,
   rankFits, rankSwaps, searchPage, tablePage, type LikeTable,
@@ -256,6 +257,7 @@ export function factsOf(s: CachedSpecies, status: RegionStatus): SpeciesFacts {
 
 export function detailsOf(s: CachedSpecies, status: RegionStatus): SpeciesDetails {
   const d = s.data
+  const fresh = sowFreshOf(d)
   return {
     ...factsOf(s, status),
     family: d.family, growthHabit: d.growthHabit, bloomMonths: d.bloomMonths, minZone: d.minZone,
@@ -263,7 +265,7 @@ export function detailsOf(s: CachedSpecies, status: RegionStatus): SpeciesDetail
     propagatedBySeed: d.propagatedBySeed, coldStratification: d.coldStratification, coldMoistDays: d.coldMoistDays,
     seedNeedsLight: d.seedNeedsLight, scarify: d.scarify, hotWaterSoak: d.hotWaterSoak, seedsPerPound: d.seedsPerPound,
     seedlingsPerPot: d.seedlingsPerPot, commercialAvailability: d.commercialAvailability, wildlife: d.wildlife,
-    sources: d.sources, estimatedFields: d.estimated, noxiousIn: d.noxiousIn, notes: d.notes ?? null,
+    sowFresh: fresh.value, sources: { ...d.sources, sowFresh: fresh.source }, estimatedFields: d.estimated, noxiousIn: d.noxiousIn, notes: d.notes ?? null,
     usdaSymbol: d.symbol || null, origin: s.origin, hasFacts: d.hasCharacteristics, flowerConspicuous: d.flowerConspicuous,
     duration: d.duration,
   }
@@ -483,6 +485,7 @@ function sameValue(a: unknown, b: unknown) {
 }
 
 function currentValue(data: CatalogueSpeciesData, field: OverrideField): unknown {
+  if (field === 'sowFresh') return sowFreshOf(data).value
   return (data as unknown as Record<string, unknown>)[field] ?? null
 }
 
@@ -653,7 +656,7 @@ export async function exportCsv(q: ExportQuery): Promise<string> {
     if (term && !s.key.includes(term) && !(d.commonName ?? '').toLowerCase().includes(term)) continue
     const status = statuses ? statuses.get(s.id) ?? 'absent' : null
     if (q.status && status !== q.status) continue
-    const record: Record<string, unknown> = { ...d, region: q.region ?? '', status, source: '', estimated: d.estimated, origin: s.origin, usdaSymbol: d.symbol }
+    const record: Record<string, unknown> = { ...d, sowFresh: sowFreshOf(d).value, region: q.region ?? '', status, source: '', estimated: d.estimated, origin: s.origin, usdaSymbol: d.symbol }
     rows.push(record)
   }
   rows.sort((a, b) => String(a.scientificName).localeCompare(String(b.scientificName)))

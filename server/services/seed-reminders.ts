@@ -56,8 +56,8 @@ export async function syncReminders(sub: typeof seedReminderSubscriptions.$infer
   const plan = await seedPlanFor(yard, isoDate(now))
   const today = isoDate(now)
   const wanted: NewJob[] = plan.tasks
-    // an alternative route would only be noise in the inbox; the past needs no reminding
-    .filter((t) => !t.optional && t.date >= today)
+    // an alternative route would only be noise in the inbox; a task whose window has closed needs no reminding
+    .filter((t) => !t.optional && (t.endDate ?? t.date) >= today)
     .map((t) => {
       const at = addDays(parseIsoDate(t.date), -sub.leadDays)
       at.setUTCHours(SEND_HOUR_UTC)
