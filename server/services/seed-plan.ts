@@ -6,9 +6,10 @@ import { seedPlans, seedPrices } from '../database/schema'
 import type { YardRow } from '../utils/auth'
 import { getSpeciesDetails } from './catalogue'
 import {
-  computeSeedPlan, frostDates, plantsBySpecies, speciesKey, raisedFromSeed, DEFAULT_MARGIN, isoDate, parseIsoDate, addDays,
+  computeSeedPlan, plantsBySpecies, speciesKey, raisedFromSeed, DEFAULT_MARGIN,
   type SeedPlan, type SeedPlanSettings, type SpeciesSetting, type SeedTask,
 } from '#shared/utils/seed-plan'
+import { frostDates, isoDate, parseIsoDate, addDays } from '#shared/utils/seed-season'
 import type { UpdateSeedPlanBody, SeedPriceBody } from '#shared/schemas/seed'
 import type { SpeciesDetails } from '#shared/types/species'
 

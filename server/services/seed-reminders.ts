@@ -7,7 +7,7 @@ import type { AccountRow, YardRow } from '../utils/auth'
 import { enqueueJobs, cancelPendingJobs, JobCancelled, type NewJob } from './jobs'
 import { yardAccessLevel } from './yard-access'
 import { seedPlanFor } from './seed-plan'
-import { addDays, isoDate, parseIsoDate } from '#shared/utils/seed-plan'
+import { addDays, isoDate, parseIsoDate } from '#shared/utils/seed-season'
 
 export const SEED_REMINDER_KIND = 'seed-reminder'
 // reminders go out at 13:00 UTC: morning across the Americas

@@ -28,8 +28,6 @@ import {
 } from './seed-season'
 import type { RegionStatus, SpeciesDetails } from '../types/species'
 
-export { addDays, isoDate, parseIsoDate, daysBetween, dayOf, frostDates, type FrostDates } from './seed-season'
-export { gramsForSeeds, GRAMS_PER_POUND, GERMINATION_SHARE } from './seed-size'
 
 export const POT_SIZE_CM = 10
 export const DEFAULT_MARGIN = 0.2
