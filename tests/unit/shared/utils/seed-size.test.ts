@@ -82,5 +82,5 @@ describe('seeds and seedlings a pot: one size-class rule', () => {
       }
     }
     expect(bad).toEqual([])
-  })
+  }, 60_000)
 })
