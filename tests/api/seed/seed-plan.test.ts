@@ -86,6 +86,10 @@ describe('GET /api/yards/[id]/seed-plan', () => {
 
   it('answers 400 for a malformed date and 404 for a yard that does not exist', async () => {
     expect((await owner.client.get(`/api/yards/${yardId}/seed-plan?today=2026-13-01`)).status).toBe(400)
+    // no 30 February, and no 29 February outside leap years
+    expect((await owner.client.get(`/api/yards/${yardId}/seed-plan?today=2026-02-30`)).status).toBe(400)
+    expect((await owner.client.get(`/api/yards/${yardId}/seed-plan?today=2027-02-29`)).status).toBe(400)
+    expect((await owner.client.get(`/api/yards/${yardId}/seed-plan?today=2028-02-29`)).status).toBe(200)
     expect((await owner.client.get('/api/yards/999999999/seed-plan')).status).toBe(404)
   })
 })
