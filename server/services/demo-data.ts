@@ -42,6 +42,7 @@ export function demoFrontYard(): YardDocument {
       { id: 'milkweed', species: 'Asclepias tuberosa', x: 2.5, y: 25, count: 5, spread: 0.45, height: 0.6 },
       { id: 'coneflower', species: 'Echinacea purpurea', cultivar: 'Sunset Lantern', x: 5, y: 25, count: 3, spread: 0.5, height: 0.9 },
       { id: 'sedge', species: 'Carex pensylvanica', points: rect(2, 1.5, 8, 2), z: 6, spacing: 0.3, height: 0.2 },
+      { id: 'aster-drift', species: 'Symphyotrichum novae-angliae', points: rect(11, 1.5, 5, 2), z: 6, spacing: 0.6, height: 1.2, label: 'Aster drift' },
       { id: 'mystery', species: null, x: 15, y: 2.5, count: 1, spread: 1.5, height: 1.5, label: 'Shrub by the shed (unknown)' },
     ],
     lines: [{ id: 'wires', kind: 'overhead', points: [[0, 35], [18, 35]], label: 'Service wires' }],

@@ -6,13 +6,12 @@ import { seedPlans, seedPrices } from '../database/schema'
 import type { YardRow } from '../database/schema'
 import { getSpeciesDetails } from './catalogue'
 import {
-  computeSeedPlan, frostDates, plantsBySpecies, speciesKey, DEFAULT_MARGIN, isoDate, parseIsoDate, addDays,
+  computeSeedPlan, plantsBySpecies, speciesKey, raisedFromSeed, DEFAULT_MARGIN,
   type SeedPlan, type SeedPlanSettings, type SpeciesSetting, type SeedTask,
 } from '#shared/utils/seed-plan'
+import { frostDates, isoDate, parseIsoDate, addDays } from '#shared/utils/seed-season'
 import type { UpdateSeedPlanBody, SeedPriceBody } from '#shared/schemas/seed'
 import type { SpeciesDetails } from '#shared/types/species'
-
-const NATIVE = new Set(['native', 'nativeAndIntroduced'])
 
 export interface StoredSettings extends SeedPlanSettings { version: number }
 
@@ -33,8 +32,7 @@ export async function seedPlanFor(yard: YardRow, today = isoDate(new Date())): P
   for (const [name, d] of details) detailsByKey.set(speciesKey(name), d)
 
   const counts = plantsBySpecies(plantings, (key) => detailsByKey.get(key)?.spacing ?? null)
-  // natives only: the point of growing from seed here is to add native plants
-  const species = [...counts].filter(([key]) => NATIVE.has(detailsByKey.get(key)?.status ?? ''))
+  const species = [...counts].filter(([key]) => raisedFromSeed(detailsByKey.get(key)?.status))
     .map(([key, c]) => ({ key, name: c.name, plants: c.plants, cultivars: c.cultivars, facts: detailsByKey.get(key) ?? null }))
 
   const keys = species.map((s) => s.key)

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { firstSelfIntersection, type Point } from '../utils/polygon'
 import { regionCode, hardinessZone, monthDay } from './common'
+import { frostOrderOk } from '../utils/seed-season'
 
 // The yard document: our own JSON format (format tag "wildward.yard/1"), stored per yard and used for export
 // and import. All lengths in metres, x to the right and y down, origin at the lot's top-left.
@@ -79,12 +80,17 @@ export const yardBackdrop = z.object({
   locked: z.boolean().default(false),
 })
 
+/** A yard's frost dates: each a real day, and the last spring frost before the first fall frost. */
+export const frostDatesSchema = z.object({ lastSpring: monthDay.nullable().optional(), firstFall: monthDay.nullable().optional() })
+  .refine((f) => !f.lastSpring || !f.firstFall || frostOrderOk(f.lastSpring, f.firstFall),
+    { path: ['firstFall'], message: 'The first fall frost comes after the last spring frost: check both dates' })
+
 const yardDocumentBase = z.object({
   format: z.literal(YARD_FORMAT).default(YARD_FORMAT),
   name: z.string().trim().max(120).optional(),
   region: regionCode.optional(),
   zone: hardinessZone.nullable().optional(),
-  frost: z.object({ lastSpring: monthDay.nullable().optional(), firstFall: monthDay.nullable().optional() }).optional(),
+  frost: frostDatesSchema.optional(),
   units: z.enum(['ft', 'm']).default('ft'),
   boundary: z.array(point).max(MAX_VERTICES).refine((pts) => pts.length === 0 || pts.length >= 3, 'A lot outline needs at least 3 points')
     .refine((pts) => pts.length === 0 || firstSelfIntersection(pts as Point[]) < 0, 'The lot outline crosses itself or has no area')

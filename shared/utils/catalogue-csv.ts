@@ -71,7 +71,7 @@ export function parseCell(column: OverrideField, raw: string): Parsed {
       const s = v.toLowerCase()
       return ['none', 'slight', 'moderate', 'severe'].includes(s) ? { value: s } : { error: 'Toxicity must be none, slight, moderate or severe' }
     }
-    case 'propagatedBySeed': case 'coldStratification': case 'seedNeedsLight': case 'scarify': case 'hotWaterSoak':
+    case 'propagatedBySeed': case 'coldStratification': case 'seedNeedsLight': case 'scarify': case 'hotWaterSoak': case 'sowFresh':
       return parseBool(v)
     case 'coldMoistDays': return parseInteger(v, 0, 365)
     case 'seedsPerPound': return parseInteger(v, 1, 1e9)
