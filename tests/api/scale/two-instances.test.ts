@@ -188,11 +188,35 @@ describe('two instances behind a round-robin proxy', () => {
     expect(failures.map((f) => f.address)).toEqual(['127.0.0.1', '192.0.2.44'])
   })
 
-  it('keeps answering through the proxy when one instance stops', async () => {
-    const c = new Client(proxy.url)
-    await apps[1]!.stop()
+  it('an instance stopped in the middle of a bulk mail finishes what it claimed, and the proxy keeps answering', async () => {
+    const coordinator = await demo('coordinator', proxy.url)
+    const subject = `Stopping mid-mailing ${Date.now()}`
+    const started = await coordinator.post('/api/drives/current/mailings', { kind: 'reminder', audience: 'all', subject, body: 'One instance stops while this goes out.' })
+    expect(started.status).toBe(202)
+    const { id, recipients } = started.body
+    expect(recipients).toBeGreaterThanOrEqual(10)
+    // both instances claim two jobs every 100 ms, so app2 is holding some when it is told to stop
+    await new Promise((r) => setTimeout(r, 300))
+    const app2 = apps[1]!
+    await app2.stop()
+    const left = await rows<{ status: string }>('SELECT j.status FROM jobs j JOIN drive_mailings m ON m.batch = j.batch_key WHERE m.id = ? AND j.claimed_by LIKE ?', [id, `%-${app2.child.pid}-%`])
+    // it had taken part (else this shows nothing), and left nothing claimed behind
+    expect(left.length).toBeGreaterThan(0)
+    expect(left.filter((j) => j.status === 'claimed')).toEqual([])
+
     // before the health check notices, a request that cannot connect is retried on the other instance
+    const c = new Client(proxy.url)
     const answers = await Promise.all(Array.from({ length: 6 }, () => c.get('/api/health')))
     expect(answers.map((a) => [a.status, servedBy(a)])).toEqual(Array(6).fill([200, 'app1']))
+
+    // the rest goes out from the instances still running, long before a stale claim (ten minutes) would be retaken
+    let progress = started.body.progress
+    for (let i = 0; i < 200 && progress.done < recipients; i++) {
+      await new Promise((r) => setTimeout(r, 100))
+      progress = (await coordinator.get(`/api/drives/current/mailings/${id}`)).body.progress
+    }
+    expect(progress).toMatchObject({ total: recipients, sent: recipients, failed: 0 })
+    const [count] = await rows<{ n: number }>('SELECT COUNT(*) AS n FROM drive_mail_deliveries WHERE mailing_id = ?', [id])
+    expect(Number(count!.n)).toBe(recipients)
   })
 })
