@@ -27,7 +27,7 @@ function yardDocument(shift = 0) {
       { id: 'bed-2', kind: 'bed', points: [[12, 1], [19, 1], [19, 6], [12, 6]], sun: 'part', soil: 'clay', moisture: 'medium' },
     ],
     plantings: [
-      { id: 'lawn', species: 'Poa pratensis', points: [[0, 7], [20, 7], [20, 13], [0, 13]], spacing: 0.05 },
+      { id: 'lawn', species: 'Poa pratensis', points: [[0, 7], [20, 7], [20, 13], [0, 13]], spacing: null },
       ...Array.from({ length: 30 }, (_, i) => ({
         id: `p${i}`, species: plants[i % plants.length], x: 1.5 + (i % 6) + (i >= 15 ? 11 : 0) + (i === 0 ? shift : 0), y: 1.5 + Math.floor((i % 15) / 6) * 1.5, count: 1 + (i % 3),
       })),

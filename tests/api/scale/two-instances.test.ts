@@ -95,7 +95,7 @@ describe('two instances behind a round-robin proxy', () => {
     }
     const [yard] = await rows<{ name: string; version: number }>('SELECT name, version FROM yards WHERE id = ?', [id])
     expect(yard).toEqual({ name: 'Two-server yard 3', version })
-  })
+  }, 60_000)
 
   it('stores a backdrop in the bucket and serves it from either instance', async () => {
     const { client } = await newHomeowner('scale-upload', proxy.url)
@@ -115,7 +115,7 @@ describe('two instances behind a round-robin proxy', () => {
     const inBucket = readdirSync(join(work, 's3', BUCKET), { recursive: true }).map(String)
     expect(inBucket.some((p) => p.includes(`backdrops/${id}/${up.body.uploadId}`))).toBe(true)
     for (const name of ['app1', 'app2']) expect(existsSync(join(work, `fs-${name}`, 'backdrops', String(id)))).toBe(false)
-  })
+  }, 60_000)
 
   it('sends bulk mail once per pledger, with both instances running the jobs', async () => {
     const pledgers: string[] = []
@@ -147,7 +147,7 @@ describe('two instances behind a round-robin proxy', () => {
     const pids = claimerPids(jobRows.map((j) => j.claimedBy))
     // both instances behind the proxy ran some (the test server may have run a few too)
     for (const app of apps) expect(pids.has(app.child.pid!)).toBe(true)
-  })
+  }, 90_000)
 
   it('runs each due seed reminder once, on one of the instances', async () => {
     const { client, user, email } = await newHomeowner('scale-remind', proxy.url)
@@ -175,7 +175,7 @@ describe('two instances behind a round-robin proxy', () => {
     expect(mail.every((m) => m.text.includes('/seed-reminders/unsubscribe?token='))).toBe(true)
     const pids = claimerPids(done.map((j) => j.claimedBy))
     expect(apps.some((a) => pids.has(a.child.pid!))).toBe(true)
-  })
+  }, 60_000)
 
   it('takes the client address from the proxy, not from what the client claims', async () => {
     const email = `nobody-${process.pid}-${Date.now()}@example.test`
@@ -218,5 +218,5 @@ describe('two instances behind a round-robin proxy', () => {
     expect(progress).toMatchObject({ total: recipients, sent: recipients, failed: 0 })
     const [count] = await rows<{ n: number }>('SELECT COUNT(*) AS n FROM drive_mail_deliveries WHERE mailing_id = ?', [id])
     expect(Number(count!.n)).toBe(recipients)
-  })
+  }, 60_000)
 })
