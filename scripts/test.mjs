@@ -5,7 +5,7 @@ import { join } from 'node:path'
 import { spawnSync } from 'node:child_process'
 import { rmSync, mkdirSync } from 'node:fs'
 import {
-  ROOT, DATA, log, ensureNodeModules, ensureChromium, startMariaDb, ensureDatabase, migrate, startFakeSmtp,
+  ROOT, DATA, log, ensureNodeModules, ensureChromium, ensureHaproxy, startMariaDb, ensureDatabase, migrate, startFakeSmtp,
   build, spawnChild, stopAll, waitForHttp, freePort, waitForChildrenExit, fail,
 } from './lib/services.mjs'
 
@@ -22,7 +22,9 @@ process.on('SIGINT', () => finish(130))
 
 ensureNodeModules()
 ensureChromium()
-const db = await startMariaDb()
+ensureHaproxy()
+// test data is thrown away: the log may be flushed about once a second instead of at every commit
+const db = await startMariaDb({ durable: false })
 const databaseUrl = ensureDatabase(db, `wildward_test${suffix}`, { fresh: true })
 migrate(databaseUrl)
 

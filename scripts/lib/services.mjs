@@ -8,7 +8,8 @@ import { join, resolve } from 'node:path'
 import { tmpdir } from 'node:os'
 
 export const ROOT = resolve(import.meta.dirname, '..', '..')
-export const DATA = join(ROOT, '.data')
+// WW_DATA_DIR moves it (a test starts a throwaway MariaDB there)
+export const DATA = process.env.WW_DATA_DIR ? resolve(process.env.WW_DATA_DIR) : join(ROOT, '.data')
 
 const children = []
 
@@ -63,6 +64,12 @@ export function ensureChromium() {
   aptInstall(['chromium', 'fonts-liberation'])
 }
 
+/** HAProxy from Debian's packages: the round-robin proxy in front of two app instances in the scale-out test. */
+export function ensureHaproxy() {
+  if (has('haproxy')) return
+  aptInstall(['haproxy'])
+}
+
 export function freePort() {
   return new Promise((res, rej) => {
     const srv = createServer()
@@ -105,11 +112,17 @@ function sql(socket, statement) {
   return spawnSync('mariadb', ['--no-defaults', `--socket=${socket}`, '-uroot', '-N', '-e', statement], { encoding: 'utf8' })
 }
 
+// What `durable: false` trades away: InnoDB writes its log at commit but flushes it to disk about once a
+// second, so a machine that stops can lose the last second of commits. Only for throwaway test and bench data.
+const RELAXED_DURABILITY = ['--innodb-flush-log-at-trx-commit=2']
+
 /**
  * Starts (or reuses) the private MariaDB server whose data lives in .data/mariadb, listening on 127.0.0.1 only.
  * Returns the socket; the server is stopped with the other children on exit when this process started it.
+ * `durable` (what `npm start` asks for) keeps InnoDB's default flush at every commit, and turns it back on in a
+ * server that a test run started relaxed; tests and benchmarks pass `durable: false`.
  */
-export async function startMariaDb() {
+export async function startMariaDb({ durable = true } = {}) {
   ensureMariaDbInstalled()
   const datadir = join(DATA, 'mariadb')
   const socket = socketPath()
@@ -117,6 +130,7 @@ export async function startMariaDb() {
   const port = Number(process.env.WW_DB_PORT || 3307)
   if (sql(socket, 'SELECT 1').status === 0) {
     log(`MariaDB already running (socket ${socket})`)
+    if (durable && sql(socket, 'SET GLOBAL innodb_flush_log_at_trx_commit = 1').status !== 0) fail('could not turn on full durability in the running MariaDB')
     return { socket, port }
   }
   if (!existsSync(join(datadir, 'mysql'))) {
@@ -131,14 +145,14 @@ export async function startMariaDb() {
     '--bind-address=127.0.0.1', `--socket=${socket}`, `--pid-file=${join(DATA, 'mariadb.pid')}`,
     `--log-error=${logFile}`, '--skip-name-resolve', '--skip-log-bin', '--character-set-server=utf8mb4',
     '--collation-server=utf8mb4_unicode_ci', '--max-connections=500', '--innodb-buffer-pool-size=256M',
-    '--innodb-flush-log-at-trx-commit=2'], { stdio: 'ignore' })
+    ...(durable ? [] : RELAXED_DURABILITY)], { stdio: 'ignore' })
   let exited = false
   child.on('exit', () => { exited = true })
   children.push({ name: 'MariaDB', child })
   for (let i = 0; i < 150; i++) {
     if (exited) fail(`MariaDB stopped at start; see ${logFile}`)
     if (sql(socket, 'SELECT 1').status === 0) {
-      log(`MariaDB running on 127.0.0.1:${port}`)
+      log(`MariaDB running on 127.0.0.1:${port}${durable ? '' : ' (log flushed about once a second: test data only)'}`)
       return { socket, port }
     }
     await new Promise((r) => setTimeout(r, 200))

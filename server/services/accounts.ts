@@ -17,8 +17,11 @@ export async function startSession(event: H3Event, u: AccountRow) {
 }
 
 export function clientAddress(event: H3Event): string {
-  // X-Forwarded-For is trusted only behind a known proxy (NUXT_TRUST_PROXY), else anyone could dodge the throttle
-  return (getRequestIP(event, { xForwardedFor: !!useRuntimeConfig().trustProxy }) ?? 'unknown').slice(0, 64)
+  // X-Forwarded-For is trusted only behind a known proxy (NUXT_TRUST_PROXY), else anyone could dodge the throttle;
+  // its last entry is the one our proxy added (earlier ones are whatever the client sent)
+  const forwarded = useRuntimeConfig().trustProxy ? getRequestHeader(event, 'x-forwarded-for') : undefined
+  const lastHop = forwarded?.split(',').map((a) => a.trim()).filter(Boolean).at(-1)
+  return (lastHop ?? getRequestIP(event) ?? 'unknown').slice(0, 64)
 }
 
 /** 429 when this e-mail or this address has failed too often in the last 15 minutes. */
