@@ -4,7 +4,8 @@ import { scoreRequest } from '#shared/schemas/score'
 import { scoreForRequest } from '../services/score-basis'
 
 export default defineEventHandler(async (event) => {
-  const request = await readBodyWith(event, scoreRequest)
+  // the session before the body: nobody signed out gets a document-sized body read
   const userId = await requireSignedIn(event)
+  const request = await readBodyWith(event, scoreRequest)
   return scoreForRequest(userId, request)
 })

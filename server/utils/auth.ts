@@ -3,58 +3,67 @@ import { eq } from 'drizzle-orm'
 import type { Role } from '#shared/types/roles'
 import { users, yards } from '../database/schema'
 import { yardAccessLevel, type YardAccess } from '../services/yard-access'
+import { liveSessionUser } from '../services/sessions'
 
 export type AccountRow = typeof users.$inferSelect
 export type YardRow = typeof yards.$inferSelect
 
-// Unsealing the session cookie costs a few milliseconds of key derivation on every request; the editor scores
-// on every change, so each instance remembers, briefly, which user an exact sealed cookie value belongs to.
-// The same sealed string always unseals to the same session, and entries live far shorter than the session.
+// Unsealing the session cookie costs a few milliseconds of key derivation on every request, so each instance
+// remembers, briefly, which session token an exact sealed cookie value holds. The sealed string never changes
+// meaning; whether the session is still live is asked of the database on every request.
 const SESSION_MEMO_MS = 30_000
 const SESSION_MEMO_MAX = 10_000
-const sessionMemo = new Map<string, { userId: number; until: number }>()
+const sessionMemo = new Map<string, { token: string; userId: number; until: number }>()
 
-async function sessionUserId(event: H3Event): Promise<number | undefined> {
+async function sealedSession(event: H3Event): Promise<{ token: string; userId: number } | undefined> {
   const raw = getCookie(event, useRuntimeConfig().session.name || 'nuxt-session')
+  if (!raw) return undefined
   const now = Date.now()
-  const hit = raw ? sessionMemo.get(raw) : undefined
-  if (hit && hit.until > now) return hit.userId
+  const hit = sessionMemo.get(raw)
+  if (hit && hit.until > now) return hit
   const session = await getUserSession(event)
-  const id = session.user?.id
-  if (raw && id) {
-    if (sessionMemo.size >= SESSION_MEMO_MAX) sessionMemo.delete(sessionMemo.keys().next().value!)
-    sessionMemo.set(raw, { userId: id, until: now + SESSION_MEMO_MS })
-  }
-  return id
+  const token = session.secure?.token
+  const userId = session.user?.id
+  if (!token || !userId) return undefined
+  if (sessionMemo.size >= SESSION_MEMO_MAX) sessionMemo.delete(sessionMemo.keys().next().value!)
+  sessionMemo.set(raw, { token, userId, until: now + SESSION_MEMO_MS })
+  return { token, userId }
 }
 
-/**
- * The signed-in user, re-read from the database so that a role change or a deleted account takes effect at once.
- * 401 when nobody is signed in (or the account is gone).
- */
-export async function requireUser(event: H3Event): Promise<AccountRow> {
+/** The account of this request's live session (ended, idle or too old sessions count as none). */
+async function sessionAccount(event: H3Event): Promise<AccountRow | undefined> {
   if (event.context.account) return event.context.account as AccountRow
-  const id = await sessionUserId(event)
-  if (!id) throw createError({ status: 401, message: 'Please sign in' })
-  const [row] = await useDb().select().from(users).where(eq(users.id, id)).limit(1)
-  if (!row) {
-    await clearUserSession(event)
-    throw createError({ status: 401, message: 'Please sign in' })
-  }
-  event.context.account = row
+  const sealed = await sealedSession(event)
+  const row = sealed ? await liveSessionUser(sealed.token) : undefined
+  if (row) event.context.account = row
   return row
 }
 
 /**
- * The signed-in user's id from the sealed session alone, without re-reading the account: for routes that read
- * and write nothing of anyone's and only need to know a person is signed in (scoring a posted document, which
- * the editor does on every change). Accounts are never deleted and scoring needs no role, so nothing a database
- * re-read could catch applies. 401 when nobody is signed in.
+ * The signed-in user, re-read from the database with the session so that a role change, a sign-out elsewhere
+ * or a password change takes effect at once. 401 when nobody is signed in (or the session ended).
+ */
+export async function requireUser(event: H3Event): Promise<AccountRow> {
+  const row = await sessionAccount(event)
+  if (!row) throw createError({ status: 401, message: 'Please sign in' })
+  return row
+}
+
+/**
+ * The signed-in user's id, for routes that read and write nothing of anyone's and only need to know a person
+ * is signed in (scoring a posted document). Checked against the sessions table like requireUser; while the
+ * database is unreachable the sealed cookie alone is accepted, so scoring keeps working through an outage.
  */
 export async function requireSignedIn(event: H3Event): Promise<number> {
-  const id = await sessionUserId(event)
-  if (!id) throw createError({ status: 401, message: 'Please sign in' })
-  return id
+  try {
+    const row = await sessionAccount(event)
+    if (row) return row.id
+  } catch (e) {
+    if (!isDatabaseUnreachable(e)) throw e
+    const sealed = await sealedSession(event)
+    if (sealed) return sealed.userId
+  }
+  throw createError({ status: 401, message: 'Please sign in' })
 }
 
 /** The signed-in user when they hold one of `roles`; 403 otherwise. */
