@@ -71,6 +71,8 @@ export default defineNuxtConfig({
     mailCaptureUrl: '',
     appUrl: 'http://127.0.0.1:3000',
     demoData: false,
+    // demo mode away from loopback only when asked for in so many words (server/utils/demo.ts)
+    demoExplicit: false,
     uploadDir: '.data/uploads',
     uploadDriver: 'fs',
     // for uploadDriver 's3': an S3-compatible bucket (NUXT_UPLOAD_S3_ENDPOINT, _BUCKET, _REGION, _ACCESS_KEY_ID, _SECRET_ACCESS_KEY)

@@ -44,7 +44,9 @@ if (!smtpUrl) {
   captureUrl = fake.captureUrl
 }
 
-const demo = process.env.WW_DEMO !== 'false'
+// demo mode (published demo passwords) by default only on loopback; elsewhere only with WW_DEMO=true
+const loopback = /^(127\.|localhost$|::1$|\[::1\]$)/.test(host)
+const demo = process.env.WW_DEMO === 'true' || (process.env.WW_DEMO !== 'false' && loopback)
 const env = {
   ...process.env,
   NUXT_TELEMETRY_DISABLED: '1',
@@ -57,6 +59,7 @@ const env = {
   NUXT_APP_URL: appUrl,
   NUXT_DEMO_DATA: demo ? 'true' : 'false',
   NUXT_PUBLIC_DEMO_MODE: demo ? 'true' : 'false',
+  NUXT_DEMO_EXPLICIT: process.env.WW_DEMO === 'true' ? 'true' : 'false',
   NUXT_UPLOAD_DIR: process.env.NUXT_UPLOAD_DIR || join(DATA, 'uploads'),
 }
 

@@ -36,3 +36,8 @@ export function insertedId(rows: { id: number }[]): number {
   if (id === undefined) throw new Error('insert returned no id')
   return id
 }
+
+/** A LIKE pattern matching `term` anywhere, with LIKE's own wildcards (% _) and escape (\) taken literally. */
+export function containsPattern(term: string): string {
+  return `%${term.replace(/[\\%_]/g, (c) => `\\${c}`)}%`
+}

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { email } from './common'
+import { email, isoDate } from './common'
 
 // Sharing, advice requests, site visits and recommendations: bodies and the recommendation format.
 
@@ -24,7 +24,7 @@ export const adviceQueueQuery = z.object({
 export const assignBody = z.object({ advisorId: z.number().int().positive({ message: 'Choose an advisor' }) })
 export const closeRequestBody = z.object({ note: z.string().trim().max(500).optional() })
 
-const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date such as 2026-05-14')
+const isoDay = isoDate
 
 export const visitBody = z.object({
   visitedOn: isoDay,

@@ -1,8 +1,9 @@
 import { z } from 'zod'
+import { isoDate } from './common'
 
 // Pledge drives, pledges, the dashboard's table and bulk mail.
 export const SHARE_KIND_OPTIONS = ['count', 'area', 'volume'] as const
-const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date such as 2026-05-14')
+const isoDay = isoDate
 
 export const driveBody = z.object({
   name: z.string().trim().min(1, 'Name the drive').max(160),
