@@ -123,19 +123,22 @@ export async function pledgeYard(owner: AccountRow, yard: YardRow, input: { neig
   const db = useDb()
   const [existing] = await db.select().from(pledges).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id))).limit(1)
   const status = statusFor(drive, existing?.status ?? null, cols)
+  let created = false
   if (existing) {
     await db.update(pledges).set({ ...input, ...cols, status }).where(eq(pledges.id, existing.id))
   } else {
     const base = drive.certifies === 'count' ? cols.countShare : drive.certifies === 'area' ? cols.areaShare : cols.volumeShare
-    await db.insert(pledges).values({
+    // the unique key (yard, drive) decides a race: the request whose insert lands created the pledge
+    created = await db.insert(pledges).values({
       driveId: drive.id, yardId: yard.id, userId: owner.id, ...input, pledgedOn: today(), ...cols, status,
       baseAreaNative: cols.areaNative, baseLawnArea: cols.lawnArea, baseShare: base, reachedAt: status === 'reached' ? new Date() : null,
-    }).onDuplicateKeyUpdate({ set: { neighbourhood: input.neighbourhood, consent: input.consent } })
+    }).then(() => true, (e) => { if (!isDuplicateKey(e)) throw e; return false })
+    if (!created) await db.update(pledges).set(input).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id)))
   }
   await upsertSnapshot(yard.id, cols)
   await bumpDriveVersion(drive.id)
   const [p] = await db.select().from(pledges).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id))).limit(1)
-  return { created: !existing, drive: driveView(drive), pledge: pledgeView(p!, drive) }
+  return { created, drive: driveView(drive), pledge: pledgeView(p!, drive) }
 }
 
 export async function withdrawPledge(yardId: number) {
