@@ -15,8 +15,8 @@ function isRealDate(y: number, m: number, d: number): boolean {
   return t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === d
 }
 
-/** The one calendar-date schema: YYYY-MM-DD naming a day that exists, in years 1900–2199. */
-export const isoDate = z.string().regex(/^(19|2[01])\d{2}-\d{2}-\d{2}$/, 'Use a date such as 2026-05-14')
+/** The one calendar-date schema: YYYY-MM-DD naming a day that exists, in MariaDB's DATE range (years 1000–9999). */
+export const isoDate = z.string().regex(/^[1-9]\d{3}-\d{2}-\d{2}$/, 'Use a date such as 2026-05-14')
   .refine((s) => isRealDate(Number(s.slice(0, 4)), Number(s.slice(5, 7)), Number(s.slice(8, 10))), 'That day does not exist')
 
 export const idParam = z.object({ id: z.coerce.number().int().positive() })

@@ -3,11 +3,9 @@ import { isoDate } from './common'
 
 // Bodies and queries of the grow-from-seed routes (the page validates its forms with the same schemas).
 
-export const isoDay = isoDate
-
 export const seedPlanQuery = z.object({
   // for planning ahead (and tests): the day the coming season is counted from; default today
-  today: isoDay.optional(),
+  today: isoDate.optional(),
 })
 
 export const speciesSetting = z.object({
