@@ -82,10 +82,11 @@ describe('the database stops under load and comes back', () => {
         for (const [what, init] of [
           ['create', { method: 'POST', headers: { cookie, 'content-type': 'application/json' }, body: JSON.stringify({ name: `Fault ${w}-${n}`, region: 'US-OH' }) }],
           ['list', { headers: { cookie } }],
+          ['score', { method: 'POST', headers: { cookie, 'content-type': 'application/json' }, body: JSON.stringify({ document: { format: 'wildward.yard/1', units: 'm', region: 'US-OH', boundary: [[0, 0], [10, 0], [10, 10], [0, 10]], plantings: [{ id: 'p', species: 'Asclepias tuberosa', x: 5, y: 5, count: 3 }] } }) }],
           ['health', {}],
         ] as const) {
           try {
-            const path = what === 'create' || what === 'list' ? '/api/yards' : '/api/health'
+            const path = what === 'create' || what === 'list' ? '/api/yards' : what === 'score' ? '/api/score' : '/api/health'
             const r = await fetch(base + path, init as RequestInit)
             const body = await r.text()
             seen.push({ what, status: r.status, retryAfter: r.headers.get('retry-after'), body })
@@ -121,6 +122,8 @@ describe('the database stops under load and comes back', () => {
       expect(s.body).toMatch(/database is not reachable/)
       expect(s.body).not.toMatch(/select|insert|Failed query/i)
     }
+    // scoring a posted yard needs no database: it keeps answering through the outage
+    expect([...new Set(seen.filter((x) => x.what === 'score').map((x) => x.status))]).toEqual([200])
     // after recovery every endpoint works again in the same app process
     const after = await fetch(`${base}/api/yards`, { headers: { cookie: cookies[0]! } })
     expect(after.status).toBe(200)
