@@ -86,7 +86,9 @@ export default defineNuxtConfig({
     // sessions end on the server (table sessions): after this long unused, and at the latest after session.maxAge
     sessionIdleSeconds: 60 * 60 * 24 * 3,
     session: {
+      // over HTTPS the start script makes these __Host-wildward-session and secure (sessionCookieEnv in scripts/lib/services.mjs)
       name: 'wildward-session',
+      cookie: { sameSite: 'lax', secure: false, path: '/' },
       maxAge: 60 * 60 * 24 * 14,
       password: '',
     },

@@ -4,7 +4,7 @@ import { join } from 'node:path'
 import { existsSync } from 'node:fs'
 import {
   ROOT, DATA, log, fail, ensureNodeModules, startMariaDb, ensureDatabase, migrate, startFakeSmtp, build,
-  spawnChild, stopAll, waitForHttp, persistentSecret, waitForChildrenExit,
+  spawnChild, stopAll, waitForHttp, persistentSecret, waitForChildrenExit, sessionCookieEnv,
 } from './lib/services.mjs'
 
 const port = Number(process.env.PORT || 3000)
@@ -57,6 +57,7 @@ const env = {
   NUXT_SMTP_URL: smtpUrl,
   NUXT_MAIL_CAPTURE_URL: captureUrl,
   NUXT_APP_URL: appUrl,
+  ...sessionCookieEnv(appUrl),
   NUXT_DEMO_DATA: demo ? 'true' : 'false',
   NUXT_PUBLIC_DEMO_MODE: demo ? 'true' : 'false',
   NUXT_DEMO_EXPLICIT: process.env.WW_DEMO === 'true' ? 'true' : 'false',

@@ -106,6 +106,16 @@ function sql(socket, statement) {
 }
 
 /**
+ * The session cookie's name and flags for an app served at appUrl: over HTTPS a __Host- cookie (Secure, Path=/,
+ * no Domain), which a browser only accepts from that very origin.
+ */
+export function sessionCookieEnv(appUrl) {
+  return /^https:/i.test(appUrl)
+    ? { NUXT_SESSION_NAME: '__Host-wildward-session', NUXT_SESSION_COOKIE_SECURE: 'true' }
+    : { NUXT_SESSION_NAME: 'wildward-session', NUXT_SESSION_COOKIE_SECURE: 'false' }
+}
+
+/**
  * The largest statement MariaDB accepts (its max_allowed_packet, set explicitly): a saved yard document is one
  * statement, and tests/unit/scripts/packet-size.test.ts checks the document cap fits with room for escaping.
  */

@@ -65,13 +65,17 @@ export default defineEventHandler((event) => {
   const streamed = getRequestHeader(event, 'transfer-encoding') !== undefined
   if (!(declared > 0) && !streamed) return
   const kind = bodyKind(getRequestHeader(event, 'content-type'))
+  const body = event as unknown as { _requestBody: PromiseLike<Buffer> }
   if (!kind || !policy.accepts.includes(kind)) {
-    const wanted = policy.accepts.map((k) => ({ json: 'application/json', multipart: 'multipart/form-data', csv: 'text/csv', form: 'application/x-www-form-urlencoded' })[k]).join(' or ')
-    throw createError({ status: 415, message: `Send the body as ${wanted}` })
+    // refused when the handler reads it (after its access check): a route never sees a body of the wrong type
+    const wanted = policy.accepts.map((k) => ({ json: 'application/json', multipart: 'multipart/form-data', csv: 'text/csv', text: 'text/plain', form: 'application/x-www-form-urlencoded' })[k]).join(' or ')
+    setResponseHeader(event, 'connection', 'close')
+    body._requestBody = { then: (_ok, fail) => Promise.reject(createError({ status: 415, message: `Send the body as ${wanted}` })).then(undefined, fail) }
+    return
   }
   if (declared > policy.maxBytes) {
     setResponseHeader(event, 'connection', 'close')
     throw tooLarge(policy)
   }
-  ;(event as unknown as { _requestBody: PromiseLike<Buffer> })._requestBody = cappedBody(event, policy)
+  body._requestBody = cappedBody(event, policy)
 })

@@ -1,5 +1,5 @@
 // Accounts in every instance: the password-reset mail job, sessions ended on the server when a cookie is cleared,
-// the session cookie's __Host- prefix over HTTPS, and the client's session probe answering only for live sessions.
+// and the client's session probe answering only for live sessions.
 import { registerJobHandler } from '../services/jobs'
 import { PASSWORD_RESET_JOB, sendPasswordReset } from '../services/accounts'
 import { endSession, liveSessionUser } from '../services/sessions'

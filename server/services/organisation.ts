@@ -16,7 +16,9 @@ let goalCache: { goal: number; until: number } | null = null
 /** The organisation's goal share (default 0.70). */
 export async function organisationGoal(): Promise<number> {
   if (goalCache && goalCache.until > Date.now()) return goalCache.goal
+  // while the database is unreachable the last goal read keeps scoring going
   const [row] = await useDb().select({ goal: organisation.goal }).from(organisation).limit(1)
+    .catch((e) => { if (goalCache && isDatabaseUnreachable(e)) return [{ goal: goalCache.goal }]; throw e })
   const goal = row ? Number(row.goal) : DEFAULT_GOAL
   goalCache = { goal, until: Date.now() + GOAL_TTL_MS }
   return goal

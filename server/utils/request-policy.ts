@@ -4,7 +4,7 @@ import { MAX_DOCUMENT_BYTES } from '#shared/schemas/yard-document'
 import { IMPORT_MAX_BYTES } from '#shared/schemas/species'
 import { MAX_IMAGE_BYTES } from './storage'
 
-export type BodyKind = 'json' | 'multipart' | 'csv' | 'form'
+export type BodyKind = 'json' | 'multipart' | 'csv' | 'text' | 'form'
 
 export interface RoutePolicy {
   /** the largest request body in bytes, streamed or declared */
@@ -30,7 +30,8 @@ const POLICIES: Array<[RegExp, RoutePolicy]> = [
   [/^\/api\/yards(\/\d+)?$/, { maxBytes: MAX_DOCUMENT_BYTES, accepts: ['json'] }],
   [/^\/api\/yards\/\d+\/backdrop$/, { maxBytes: MAX_IMAGE_BYTES + MULTIPART_HEADROOM, accepts: ['multipart'] }],
   [/^\/api\/visits\/\d+\/photos$/, { maxBytes: MAX_IMAGE_BYTES + MULTIPART_HEADROOM, accepts: ['multipart'] }],
-  [/^\/api\/catalogue\/import\/(preview|apply)$/, { maxBytes: IMPORT_MAX_BYTES, accepts: ['csv'] }],
+  // a CSV file as its own body (a spreadsheet may label it text/plain); never JSON, so never a JSON route's way in
+  [/^\/api\/catalogue\/import\/(preview|apply)$/, { maxBytes: IMPORT_MAX_BYTES, accepts: ['csv', 'text'] }],
   // a webhook from a hosted service: add its route here with crossSite: true (and verify its signature in the handler)
   // one-click unsubscribe (RFC 8058) is posted by the reader's mail service; the token in the link is the credential
   [/^\/seed-reminders\/unsubscribe$/, { maxBytes: 1024, accepts: ['form'], crossSite: true }],
@@ -47,10 +48,11 @@ const KIND_OF: Record<string, BodyKind> = {
   'application/json': 'json',
   'multipart/form-data': 'multipart',
   'text/csv': 'csv',
+  'text/plain': 'text',
   'application/x-www-form-urlencoded': 'form',
 }
 
-/** The body kind a Content-Type header names, or null for anything we never accept (text/plain, forms). */
+/** The body kind a Content-Type header names, or null for anything no route accepts. */
 export function bodyKind(contentType: string | undefined): BodyKind | null {
   const type = (contentType ?? '').split(';')[0]!.trim().toLowerCase()
   return KIND_OF[type] ?? null

@@ -48,6 +48,7 @@ export function firstSelfIntersection(ring: Ring): number {
   const n = ring.length
   if (n < 3) return 0
   if (ringArea(ring) === 0) return 0
+  if (n <= SMALL_RING) return allPairsSelfIntersection(ring)
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity
   for (let i = 0; i < n; i++) {
     const [x, y] = ring[i]!
@@ -97,6 +98,24 @@ export function firstSelfIntersection(ring: Ring): number {
     }
   }
   return best < n ? best : -1
+}
+
+// below this many vertices comparing every pair is cheaper than building a grid
+const SMALL_RING = 48
+
+function allPairsSelfIntersection(ring: Ring): number {
+  const n = ring.length
+  for (let i = 0; i < n; i++) {
+    const a = ring[i]!
+    const b = ring[(i + 1) % n]!
+    if (a[0] === b[0] && a[1] === b[1]) return i
+    for (let j = i + 2; j < n; j++) {
+      // adjacent edges share a vertex by construction
+      if (i === 0 && j === n - 1) continue
+      if (segmentsIntersect(a, b, ring[j]!, ring[(j + 1) % n]!)) return i
+    }
+  }
+  return -1
 }
 
 function firstZeroEdge(ring: Ring): number {

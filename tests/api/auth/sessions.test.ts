@@ -5,6 +5,7 @@ import { spawn } from 'node:child_process'
 import { createServer } from 'node:net'
 import mysql from 'mysql2/promise'
 import { Client, newHomeowner, waitForMail } from '../../support/http'
+import { sessionCookieEnv } from '../../../scripts/lib/services.mjs'
 
 const pool = mysql.createPool({ uri: process.env.DATABASE_URL!, connectionLimit: 2 })
 afterAll(() => pool.end())
@@ -60,7 +61,7 @@ describe('sessions', () => {
   it('names its cookie __Host- and marks it Secure where the app is served over HTTPS', { timeout: 90_000 }, async () => {
     const port = await new Promise<number>((res) => { const s = createServer(); s.listen(0, '127.0.0.1', () => { const p = (s.address() as { port: number }).port; s.close(() => res(p)) }) })
     const child = spawn(process.execPath, [process.env.WW_SERVER_ENTRY!], {
-      env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', NUXT_APP_URL: 'https://wildward.example.test', NUXT_JOBS_INTERVAL_MS: '0' },
+      env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', NUXT_APP_URL: 'https://wildward.example.test', ...sessionCookieEnv('https://wildward.example.test'), NUXT_JOBS_INTERVAL_MS: '0' },
       stdio: 'ignore',
     })
     try {

@@ -82,7 +82,7 @@ describe('the database stops under load and comes back', () => {
         for (const [what, init] of [
           ['create', { method: 'POST', headers: { cookie, 'content-type': 'application/json' }, body: JSON.stringify({ name: `Fault ${w}-${n}`, region: 'US-OH' }) }],
           ['list', { headers: { cookie } }],
-          ['score', { method: 'POST', headers: { cookie, 'content-type': 'application/json' }, body: JSON.stringify({ document: { format: 'wildward.yard/1', units: 'm', region: 'US-OH', boundary: [[0, 0], [10, 0], [10, 10], [0, 10]], plantings: [{ id: 'p', species: 'Asclepias tuberosa', x: 5, y: 5, count: 3 }] } }) }],
+          ['score', { method: 'POST', headers: { cookie, 'content-type': 'application/json' }, body: JSON.stringify({ format: 'wildward.yard/1', units: 'm', region: 'US-OH', boundary: [[0, 0], [10, 0], [10, 10], [0, 10]], plantings: [{ id: 'p', species: 'Asclepias tuberosa', x: 5, y: 5, count: 3 }] }) }],
           ['health', {}],
         ] as const) {
           try {

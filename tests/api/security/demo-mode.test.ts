@@ -7,7 +7,7 @@ import { Client, demo, newHomeowner, waitForMail } from '../../support/http'
 describe('demo mode', () => {
   it('shows a banner on every page', async () => {
     for (const path of ['/', '/login', '/no-such-page']) {
-      const r = await new Client().get(path)
+      const r = await new Client().request('GET', path, undefined, { accept: 'text/html' })
       expect(String(r.body)).toContain('data-testid="demo-banner"')
     }
   })
