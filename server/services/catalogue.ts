@@ -368,7 +368,8 @@ async function listSpeciesSql(q: SpeciesListQuery) {
   const r = catalogueRegions
   const status = sql<RegionStatus>`coalesce(${r.status}, 'absent')`
   const where: SQL[] = []
-  if (q.q) where.push(or(like(s.scientificName, containsPattern(q.q)), like(s.commonName, containsPattern(q.q)))!)
+  const term = q.q ? escapeLike(q.q) : undefined
+  if (term) where.push(or(like(s.scientificName, `%${term}%`), like(s.commonName, `%${term}%`))!)
   if (q.layer) where.push(eq(s.layer, q.layer))
   if (q.sun) where.push(sql`find_in_set(${q.sun}, ${s.sun})`)
   if (q.moisture) where.push(sql`find_in_set(${q.moisture}, ${s.moisture})`)

@@ -1,11 +1,11 @@
 // The yards a person may open, as two index lookups (owned by them; shared with them) joined by UNION ALL, so
 // the list never reads the whole yards table. Explicit imports only: tests EXPLAIN this very query.
-import { eq, sql } from 'drizzle-orm'
+import { eq, sql, type SQL } from 'drizzle-orm'
 import { unionAll } from 'drizzle-orm/mysql-core'
 import type { MySql2Database } from 'drizzle-orm/mysql2'
 import { yards, yardMembers, users } from '../database/schema'
 
-const listColumns = (memberRole: ReturnType<typeof sql<string | null>>) => ({
+const listColumns = (memberRole: SQL.Aliased<string | null>) => ({
   id: yards.id, name: yards.name, region: yards.region, zone: yards.zone, units: yards.units, version: yards.version,
   ownerId: yards.ownerId, ownerName: users.name, updatedAt: yards.updatedAt, createdAt: yards.createdAt,
   memberRole,

@@ -37,7 +37,12 @@ export function insertedId(rows: { id: number }[]): number {
   return id
 }
 
-/** A LIKE pattern matching `term` anywhere, with LIKE's own wildcards (% _) and escape (\) taken literally. */
+/** `term` with LIKE's own wildcards (% _) and escape (\) taken literally. */
+export function escapeLike(term: string): string {
+  return term.replace(/[\\%_]/g, (c) => `\\${c}`)
+}
+
+/** A LIKE pattern matching `term` anywhere. */
 export function containsPattern(term: string): string {
-  return `%${term.replace(/[\\%_]/g, (c) => `\\${c}`)}%`
+  return `%${escapeLike(term)}%`
 }
