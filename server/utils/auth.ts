@@ -1,12 +1,9 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import type { Role } from '#shared/types/roles'
-import { users, yards } from '../database/schema'
+import { users, yards, type AccountRow } from '../database/schema'
 import { yardAccessLevel, type YardAccess } from '../services/yard-access'
 import { liveSessionUser } from '../services/sessions'
-
-export type AccountRow = typeof users.$inferSelect
-export type YardRow = typeof yards.$inferSelect
 
 // Unsealing the session cookie costs a few milliseconds of key derivation on every request, so each instance
 // remembers, briefly, which session token an exact sealed cookie value holds. The sealed string never changes
@@ -47,23 +44,6 @@ export async function requireUser(event: H3Event): Promise<AccountRow> {
   const row = await sessionAccount(event)
   if (!row) throw createError({ status: 401, message: 'Please sign in' })
   return row
-}
-
-/**
- * The signed-in user's id, for routes that read and write nothing of anyone's and only need to know a person
- * is signed in (scoring a posted document). Checked against the sessions table like requireUser; while the
- * database is unreachable the sealed cookie alone is accepted, so scoring keeps working through an outage.
- */
-export async function requireSignedIn(event: H3Event): Promise<number> {
-  try {
-    const row = await sessionAccount(event)
-    if (row) return row.id
-  } catch (e) {
-    if (!isDatabaseUnreachable(e)) throw e
-    const sealed = await sealedSession(event)
-    if (sealed) return sealed.userId
-  }
-  throw createError({ status: 401, message: 'Please sign in' })
 }
 
 /** The signed-in user when they hold one of `roles`; 403 otherwise. */

@@ -44,3 +44,6 @@ export const loginAttempts = mysqlTable('login_attempts', {
   attempts: int('attempts').notNull(),
   windowStart: timestamp('window_start', { fsp: 3 }).notNull().defaultNow(),
 })
+
+/** An account as stored (the type every service and access helper takes). */
+export type AccountRow = typeof users.$inferSelect
