@@ -1,7 +1,7 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import type { Role } from '#shared/types/roles'
-import { users, yards, type AccountRow } from '../database/schema'
+import { yards, type AccountRow } from '../database/schema'
 import { yardAccessLevel, type YardAccess } from '../services/yard-access'
 import { liveSessionUser } from '../services/sessions'
 
