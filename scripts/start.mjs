@@ -4,7 +4,7 @@ import { join } from 'node:path'
 import { existsSync } from 'node:fs'
 import {
   ROOT, DATA, log, fail, ensureNodeModules, startMariaDb, ensureDatabase, migrate, startFakeSmtp, build,
-  spawnChild, stopAll, waitForHttp, persistentSecret, waitForChildrenExit,
+  spawnChild, stopAll, waitForHttp, persistentSecret, waitForChildrenExit, sessionCookieEnv,
 } from './lib/services.mjs'
 
 const port = Number(process.env.PORT || 3000)
@@ -44,7 +44,9 @@ if (!smtpUrl) {
   captureUrl = fake.captureUrl
 }
 
-const demo = process.env.WW_DEMO !== 'false'
+// demo mode (published demo passwords) by default only on loopback; elsewhere only with WW_DEMO=true
+const loopback = /^(127\.|localhost$|::1$|\[::1\]$)/.test(host)
+const demo = process.env.WW_DEMO === 'true' || (process.env.WW_DEMO !== 'false' && loopback)
 const env = {
   ...process.env,
   NUXT_TELEMETRY_DISABLED: '1',
@@ -55,8 +57,10 @@ const env = {
   NUXT_SMTP_URL: smtpUrl,
   NUXT_MAIL_CAPTURE_URL: captureUrl,
   NUXT_APP_URL: appUrl,
+  ...sessionCookieEnv(appUrl),
   NUXT_DEMO_DATA: demo ? 'true' : 'false',
   NUXT_PUBLIC_DEMO_MODE: demo ? 'true' : 'false',
+  NUXT_DEMO_EXPLICIT: process.env.WW_DEMO === 'true' ? 'true' : 'false',
   NUXT_UPLOAD_DIR: process.env.NUXT_UPLOAD_DIR || join(DATA, 'uploads'),
 }
 

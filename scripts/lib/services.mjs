@@ -117,6 +117,22 @@ function sql(socket, statement) {
 const RELAXED_DURABILITY = ['--innodb-flush-log-at-trx-commit=2']
 
 /**
+ * The session cookie's name and flags for an app served at appUrl: over HTTPS a __Host- cookie (Secure, Path=/,
+ * no Domain), which a browser only accepts from that very origin.
+ */
+export function sessionCookieEnv(appUrl) {
+  return /^https:/i.test(appUrl)
+    ? { NUXT_SESSION_NAME: '__Host-wildward-session', NUXT_SESSION_COOKIE_SECURE: 'true' }
+    : { NUXT_SESSION_NAME: 'wildward-session', NUXT_SESSION_COOKIE_SECURE: 'false' }
+}
+
+/**
+ * The largest statement MariaDB accepts (its max_allowed_packet, set explicitly): a saved yard document is one
+ * statement, and tests/unit/scripts/packet-size.test.ts checks the document cap fits with room for escaping.
+ */
+export const MAX_ALLOWED_PACKET_BYTES = 16 * 1024 * 1024
+
+/**
  * Starts (or reuses) the private MariaDB server whose data lives in .data/mariadb, listening on 127.0.0.1 only.
  * Returns the socket; the server is stopped with the other children on exit when this process started it.
  * `durable` (what `npm start` asks for) keeps InnoDB's default flush at every commit, and turns it back on in a
@@ -144,7 +160,7 @@ export async function startMariaDb({ durable = true } = {}) {
   const child = spawn('mariadbd', ['--no-defaults', '--user=root', `--datadir=${datadir}`, `--port=${port}`,
     '--bind-address=127.0.0.1', `--socket=${socket}`, `--pid-file=${join(DATA, 'mariadb.pid')}`,
     `--log-error=${logFile}`, '--skip-name-resolve', '--skip-log-bin', '--character-set-server=utf8mb4',
-    '--collation-server=utf8mb4_unicode_ci', '--max-connections=500', '--innodb-buffer-pool-size=256M',
+    '--collation-server=utf8mb4_unicode_ci', '--max-connections=500', `--max-allowed-packet=${MAX_ALLOWED_PACKET_BYTES}`, '--innodb-buffer-pool-size=256M',
     ...(durable ? [] : RELAXED_DURABILITY)], { stdio: 'ignore' })
   let exited = false
   child.on('exit', () => { exited = true })

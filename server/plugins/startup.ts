@@ -2,9 +2,15 @@
 import { ensureOrganisation } from '../services/organisation'
 import { loadDemoData, loadDemoDrive } from '../services/demo-data'
 import { ensureCatalogue } from '../services/catalogue'
+import { demoRefusal } from '../utils/demo'
 
 export default defineNitroPlugin(() => {
   const config = useRuntimeConfig()
+  const refusal = demoRefusal(process.env, !!config.demoData || !!config.public.demoMode, !!config.demoExplicit)
+  if (refusal) {
+    console.error(`[wildward] ${refusal}`)
+    process.exit(1)
+  }
   if (!config.databaseUrl) return
   setStartupWork((async () => {
     try {

@@ -193,7 +193,8 @@ async function buildCatalogue(forStamp: string): Promise<Catalogue> {
 
 /** This instance's copy of the catalogue, rebuilt when the stamp row says the database changed. */
 export async function useCatalogue(): Promise<Catalogue> {
-  const s = await currentStamp()
+  // while the database is unreachable the copy in hand keeps answering (it cannot have changed meanwhile)
+  const s = await currentStamp().catch((e) => { if (cache && isDatabaseUnreachable(e)) return cache.stamp; throw e })
   if (cache && cache.stamp === s) return cache
   if (!building || building.stamp !== s) {
     const promise = buildCatalogue(s).then((c) => { if (building?.stamp === s) { cache = c; building = null } return c })

@@ -95,7 +95,7 @@ export function taskUid(yardId: number, task: SeedTask): string {
 export function taskEvents(plans: Array<Pick<YardSeedPlan, 'yardId' | 'yardName' | 'tasks'>>, link: (yardId: number) => string): EventAttributes[] {
   return plans.flatMap((plan) => plan.tasks.map((task): EventAttributes => ({
     uid: taskUid(plan.yardId, task),
-    title: `${task.title} (${plan.yardName})`,
+    title: `${task.title} (${icsLine(plan.yardName)})`,
     description: [
       task.endDate ? `From ${task.date} to ${task.endDate}.` : null,
       task.optional ? 'Only if you did not sow outdoors in time.' : null,
@@ -114,7 +114,14 @@ export function taskEvents(plans: Array<Pick<YardSeedPlan, 'yardId' | 'yardName'
   })))
 }
 
+/** Text for one iCalendar property: a CR, LF or other control character (from a yard name) would start a line of its own. */
+export function icsLine(text: string): string {
+  // eslint-disable-next-line no-control-regex
+  return text.replace(/[\u0000-\u001f\u007f\u2028\u2029]+/g, ' ').trim()
+}
+
 export function calendarText(events: EventAttributes[], calName: string): string {
+  calName = icsLine(calName)
   // an empty calendar is still a valid one (ics refuses an empty list)
   if (!events.length) return ['BEGIN:VCALENDAR', 'VERSION:2.0', 'PRODID:-//Wildward//Grow from seed//EN', `X-WR-CALNAME:${calName}`, 'END:VCALENDAR', ''].join('\r\n')
   const { error, value } = createEvents(events, { productId: '-//Wildward//Grow from seed//EN', calName })

@@ -170,10 +170,12 @@ export async function calendarStatus(userId: number) {
 /** A new address (the old one stops working); the secret is shown this once. */
 export async function newCalendarToken(userId: number): Promise<string> {
   const token = randomBytes(32).toString('base64url')
-  await useDb().transaction(async (tx) => {
+  await withContentionRetry(() => useDb().transaction(async (tx) => {
+    // one new address at a time per user: the account row's lock orders concurrent requests
+    await tx.select({ id: users.id }).from(users).where(eq(users.id, userId)).for('update')
     await tx.update(calendarTokens).set({ revokedAt: new Date() }).where(and(eq(calendarTokens.userId, userId), sql`${calendarTokens.revokedAt} is null`))
     await tx.insert(calendarTokens).values({ userId, tokenHash: hashToken(token) })
-  })
+  }))
   return token
 }
 

@@ -1,14 +1,11 @@
 import { z } from 'zod'
-import { isLeapYear, isMonthDay } from '../utils/seed-season'
+import { isoDate } from './common'
 
 // Bodies and queries of the grow-from-seed routes (the page validates its forms with the same schemas).
 
-export const isoDay = z.string().regex(/^\d{4}-\d\d-\d\d$/, 'Use YYYY-MM-DD')
-  .refine((s) => isMonthDay(s.slice(5)) && (s.slice(5) !== '02-29' || isLeapYear(Number(s.slice(0, 4)))), 'Not a day of the calendar')
-
 export const seedPlanQuery = z.object({
   // for planning ahead (and tests): the day the coming season is counted from; default today
-  today: isoDay.optional(),
+  today: isoDate.optional(),
 })
 
 export const speciesSetting = z.object({

@@ -6,6 +6,7 @@ import { SUN, SOIL, MOISTURE } from '../schemas/yard-document'
 import { CSV_COLUMNS, CSV_READ_ONLY_COLUMNS, IMPORT_MAX_ROWS, SOURCE_PATTERN, type CsvColumn, type ImportError, type OverrideField } from '../schemas/species'
 import { REGIONS } from './regions'
 import { zoneIndex, roundToCm } from './catalogue-rules'
+import { CSV_FORMULA_START } from './csv'
 
 export type Parsed = { value: unknown } | { error: string }
 
@@ -143,8 +144,8 @@ export function readCatalogueCsv(text: string): { entries: CsvEntry[]; errors: I
 
 /** CSV text from rows keyed by column name (export). */
 export function catalogueToCsv(columns: readonly string[], rows: Record<string, unknown>[]): string {
-  // escapeFormulae: a cell starting with = + @ is not run as a formula by a spreadsheet
-  return Papa.unparse({ fields: [...columns], data: rows.map((r) => columns.map((c) => formatCell(r[c]))) }, { escapeFormulae: /^[=+@\t\r]/ })
+  // escapeFormulae: a cell starting with = + - @ is not run as a formula by a spreadsheet
+  return Papa.unparse({ fields: [...columns], data: rows.map((r) => columns.map((c) => formatCell(r[c]))) }, { escapeFormulae: CSV_FORMULA_START })
 }
 
 function formatCell(v: unknown): string {
