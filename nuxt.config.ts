@@ -41,6 +41,9 @@ export default defineNuxtConfig({
     // background jobs (server/plugins/jobs.ts): how often each instance looks for due jobs; 0 turns it off
     jobsIntervalMs: 5000,
     jobsBatchSize: 50,
+    // the hosted payment service through its official SDK: keys from NUXT_PAYMENTS_SECRET_KEY and
+    // NUXT_PAYMENTS_WEBHOOK_SECRET; apiHost/apiPort/apiProtocol only point it at the local fake (empty: the real one)
+    payments: { secretKey: '', webhookSecret: '', apiHost: '', apiPort: '', apiProtocol: '', currency: 'usd' },
     session: {
       maxAge: 60 * 60 * 24 * 14,
       password: '',
