@@ -26,18 +26,26 @@ export const pickupEventBody = z.object({
   place: z.string().trim().min(3, 'Say where').max(200),
 })
 
+const lotFields = {
+  collected: z.string().trim().min(3, 'Say where and when the seed was collected').max(200),
+  seedsPerPacket: z.number().int('Whole seeds').min(1, 'At least 1 seed').max(1_000_000).nullable(),
+  packetMilligrams: z.number().int('Whole milligrams').min(1, 'At least 1 mg').max(1_000_000).nullable(),
+  priceMinor: minor('The price', 1_000_000),
+  stock: z.number({ error: 'Give the packets in stock' }).int('Whole packets').min(0, 'Stock cannot be negative').max(100_000),
+  growingNotes: z.string().trim().max(2000).nullable(),
+}
+
 export const lotBody = z.object({
   saleId: id,
   scientificName: z.string().trim().min(3, 'Name the species').max(200),
-  collected: z.string().trim().min(3, 'Say where and when the seed was collected').max(200),
-  seedsPerPacket: z.number().int('Whole seeds').min(1, 'At least 1 seed').max(1_000_000).nullable().default(null),
-  packetMilligrams: z.number().int('Whole milligrams').min(1, 'At least 1 mg').max(1_000_000).nullable().default(null),
-  priceMinor: minor('The price', 1_000_000),
-  stock: z.number({ error: 'Give the packets in stock' }).int('Whole packets').min(0, 'Stock cannot be negative').max(100_000),
-  growingNotes: z.string().trim().max(2000).nullable().default(null),
+  ...lotFields,
+  seedsPerPacket: lotFields.seedsPerPacket.default(null),
+  packetMilligrams: lotFields.packetMilligrams.default(null),
+  growingNotes: lotFields.growingNotes.default(null),
 }).refine((b) => b.seedsPerPacket !== null || b.packetMilligrams !== null, { path: ['seedsPerPacket'], message: 'Give seeds per packet or grams' })
 
-export const lotUpdateBody = lotBody.innerType().omit({ saleId: true, scientificName: true }).partial()
+/** A lot's changes: any of its fields but the sale and species. */
+export const lotUpdateBody = z.object(lotFields).partial()
 
 export const shopQuery = z.object({
   region: regionCode.optional(),

@@ -335,6 +335,17 @@ export function treatmentSteps(f: { coldMoistDays: number; coldNeedKnown: boolea
   return steps
 }
 
+/** The treatment a species' seed needs, from its catalogue facts (a cold period of unknown length counts 60 days). */
+export function treatmentFacts(f: Pick<SeedFacts, 'coldStratification' | 'coldMoistDays' | 'seedNeedsLight' | 'scarify' | 'hotWaterSoak'>) {
+  return {
+    coldNeedKnown: f.coldStratification !== null || (f.coldMoistDays !== null && f.coldMoistDays > 0),
+    coldMoistDays: f.coldStratification === false ? 0 : Math.max(0, Math.round(f.coldMoistDays ?? (f.coldStratification ? 60 : 0))),
+    surfaceSow: f.seedNeedsLight === true,
+    scarify: f.scarify,
+    hotWaterSoak: f.hotWaterSoak,
+  }
+}
+
 export function tagTreatment(f: { coldMoistDays: number; scarify: boolean; hotWaterSoak: boolean; surfaceSow: boolean }): string {
   const parts: string[] = []
   if (f.scarify) parts.push('scarified')
@@ -380,10 +391,8 @@ export function computeSeedPlan(input: SeedPlanInput): SeedPlan {
     const perPot = seedsPerPotFor(f.seedsPerPound)
     const seeds = pots * perPot.seedsPerPot
     const grams = gramsForSeeds(seeds, f.seedsPerPound)
-    const coldNeedKnown = f.coldStratification !== null || (f.coldMoistDays !== null && f.coldMoistDays > 0)
-    const coldMoistDays = f.coldStratification === false ? 0 : Math.max(0, Math.round(f.coldMoistDays ?? (f.coldStratification ? 60 : 0)))
+    const { coldNeedKnown, coldMoistDays, surfaceSow } = treatmentFacts(f)
     if (f.coldStratification && f.coldMoistDays === null) notes.push('Cold period length not recorded: 60 days assumed.')
-    const surfaceSow = f.seedNeedsLight === true
 
     let sowFrom: Date | null = null
     let sowTo: Date | null = null
