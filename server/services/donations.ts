@@ -49,5 +49,5 @@ export async function donationsCsv() {
   return Papa.unparse({
     fields: ['id', 'date', 'name', 'email', 'amount', 'currency', 'status', 'dedication'],
     data: list.map((d) => [d.id, (d.paidAt ?? d.createdAt).toISOString().slice(0, 10), d.name, d.email, formatMoney(d.amountMinor, d.currency), d.currency.toUpperCase(), label('donationStatus', d.status), d.dedication ?? '']),
-  })
+  }, { escapeFormulae: true })
 }

@@ -54,5 +54,5 @@ export async function ordersCsv(filter: AdminOrdersFilter) {
     fields: ['order', 'placed', 'name', 'email', 'status', 'delivery', 'pickup', 'payment', 'packets', 'total', 'currency', 'paid'],
     data: rows.map((o) => [o.id, o.placedAt?.toISOString().slice(0, 16).replace('T', ' ') ?? '', o.name, o.email, label('orderStatus', o.status), label('delivery', o.delivery),
       o.pickupAt ? `${o.pickupAt.slice(0, 16)} ${o.pickupPlace}` : '', label('payment', o.payment), o.packets, formatMoney(o.totalMinor, o.currency), o.currency.toUpperCase(), o.paidAt ? 'yes' : 'no']),
-  })
+  }, { escapeFormulae: true })
 }

@@ -172,7 +172,7 @@ export async function lotsCsv(saleId: number): Promise<string> {
     grams_per_packet: l.packetMilligrams === null ? '' : l.packetMilligrams / 1000,
     price: formatMoney(l.priceMinor, sale.currency).replace(/[^\d.]/g, ''), stock: l.stock, growing_notes: l.growingNotes ?? '',
   }))
-  return Papa.unparse({ fields: [...LOT_CSV_COLUMNS], data: rows.map((r) => LOT_CSV_COLUMNS.map((c) => r[c])) })
+  return Papa.unparse({ fields: [...LOT_CSV_COLUMNS], data: rows.map((r) => LOT_CSV_COLUMNS.map((c) => r[c])) }, { escapeFormulae: true })
 }
 
 /** Reads and checks a lots CSV; every row error is listed (row numbers count the header as row 1). */
