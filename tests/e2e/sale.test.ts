@@ -1,9 +1,12 @@
 // The seed sale in Chromium: from a yard's grow-from-seed page to a paid order through the fake hosted checkout
 // (a declined card first), the receipt by e-mail, and the coordinator's pick list and "picked up".
 import { describe, it, expect, beforeAll, afterAll } from 'vitest'
-import { launch, newContext, outsideRequests, signIn, type Browser } from '../support/browser'
+import { launch, newContext, outsideRequests, signIn, type Browser, type Page } from '../support/browser'
 import { newHomeowner, waitForMail } from '../support/http'
 import { seedYard } from '../api/seed/fixtures'
+
+// Vue marks the app's root once it has hydrated; a click before that is lost
+const hydrated = (page: Page) => page.waitForFunction(() => !!(document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__)
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
@@ -18,6 +21,7 @@ describe('seed sale in the browser', () => {
     await signIn(page, owner.email, 'a-long-test-password')
 
     await page.goto(`/yards/${yardId}/seeds`)
+    await hydrated(page)
     const seedsOf = async (species: string) => Number((await page.locator(`[data-test=seed-row][data-species="${species}"] td:nth-child(6)`).textContent())!.match(/(\d+) seeds/)![1])
     const milkweedSeeds = await seedsOf('Asclepias tuberosa')
     await page.locator('[data-test=packets-to-cart]').click()
@@ -27,9 +31,14 @@ describe('seed sale in the browser', () => {
     const milkweedPackets = Math.ceil(milkweedSeeds / 50)
     expect(await result.textContent()).toContain(`${milkweedPackets} × Asclepias tuberosa`)
 
+    // one cart line per species the plan grows from seed and the sale has
+    const added = await result.locator('p').first().locator('em').count()
+    expect(added).toBeGreaterThan(0)
     await page.locator('[data-test=go-to-cart]').click()
     await page.waitForURL(/\/sale/)
-    await expect.poll(() => page.locator('[data-test=cart-line]').count()).toBe(3)
+    await hydrated(page)
+    await expect.poll(() => page.locator('[data-test=cart-line]').count()).toBe(added)
+    expect(await page.locator('[data-test=cart-line]').filter({ hasText: 'Asclepias tuberosa' }).locator('input').inputValue()).toBe(String(milkweedPackets))
     await page.screenshot({ path: '/tmp/sale-shop-desktop.png', fullPage: true })
     await page.setViewportSize({ width: 768, height: 1024 })
     await page.screenshot({ path: '/tmp/sale-shop-tablet.png', fullPage: true })
@@ -74,6 +83,7 @@ describe('seed sale in the browser', () => {
     await cpage.screenshot({ path: '/tmp/sale-pick-list-print.png', fullPage: true })
     await cpage.emulateMedia({ media: 'screen' })
     await cpage.goto(`/sale/orders/${orderId}`)
+    await hydrated(cpage)
     await cpage.locator('[data-test=mark-packed]').click()
     await expect.poll(() => cpage.locator('[data-test=order-status]').textContent()).toBe('Packed')
     await cpage.locator('[data-test=mark-picked-up]').click()
