@@ -1,12 +1,10 @@
 // The seed sale in Chromium: from a yard's grow-from-seed page to a paid order through the fake hosted checkout
 // (a declined card first), the receipt by e-mail, and the coordinator's pick list and "picked up".
 import { describe, it, expect, beforeAll, afterAll } from 'vitest'
-import { launch, newContext, outsideRequests, signIn, type Browser, type Page } from '../support/browser'
+import { launch, newContext, outsideRequests, signIn, hydrated, type Browser } from '../support/browser'
 import { newHomeowner, waitForMail } from '../support/http'
 import { seedYard } from '../api/seed/fixtures'
 
-// Vue marks the app's root once it has hydrated; a click before that is lost
-const hydrated = (page: Page) => page.waitForFunction(() => !!(document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__)
 
 let browser: Browser
 beforeAll(async () => { browser = await launch() })
