@@ -85,6 +85,9 @@ export default defineNuxtConfig({
     jobsBatchSize: 50,
     // sessions end on the server (table sessions): after this long unused, and at the latest after session.maxAge
     sessionIdleSeconds: 60 * 60 * 24 * 3,
+    // the hosted payment service through its official SDK: keys from NUXT_PAYMENTS_SECRET_KEY and
+    // NUXT_PAYMENTS_WEBHOOK_SECRET; apiHost/apiPort/apiProtocol only point it at the local fake (empty: the real one)
+    payments: { secretKey: '', webhookSecret: '', apiHost: '', apiPort: '', apiProtocol: '', currency: 'usd' },
     session: {
       // over HTTPS the start script makes these __Host-wildward-session and secure (sessionCookieEnv in scripts/lib/services.mjs)
       name: 'wildward-session',
