@@ -55,7 +55,10 @@ export function useYardScore() {
       if (mine !== ticket) return
       const err = e as { statusCode?: number; data?: { message?: string } }
       if (err.statusCode === 404) view.scoreState = 'unavailable'
-      else {
+      else if (!err.statusCode) {
+        view.scoreState = 'error'
+        error.value = 'Offline: the score is worked out again when the connection returns'
+      } else {
         view.scoreState = 'error'
         error.value = err.data?.message ?? 'The score could not be worked out'
       }
@@ -65,7 +68,7 @@ export function useYardScore() {
     clearTimeout(timer)
     timer = setTimeout(run, SCORE_DELAY_MS)
   })
-  onMounted(run)
-  onBeforeUnmount(() => clearTimeout(timer))
+  onMounted(() => { run(); window.addEventListener('online', run) })
+  onBeforeUnmount(() => { clearTimeout(timer); window.removeEventListener('online', run) })
   return { error, run }
 }
