@@ -41,7 +41,7 @@ async function waitForPlan(page: Page) {
 async function openOnceOnline(page: Page, id: number) {
   await page.goto(`/yards/${id}`)
   await waitForPlan(page)
-  await expect.poll(() => saveState(page)).toBe('saved')
+  await expect.poll(() => saveState(page), { timeout: 15_000 }).toBe('saved')
   await expect.poll(() => page.evaluate(async () => !!navigator.serviceWorker.controller && !!(await caches.match(location.href))), { timeout: 30_000 }).toBe(true)
 }
 async function drawOnPlan(page: Page, tool: string, from: [number, number], to: [number, number]) {
@@ -79,16 +79,16 @@ async function editOfflineAcrossATab(context: BrowserContext, id: number): Promi
   await page.locator('[data-test=offline-bar]').waitFor()
   expect(await page.locator('[data-test=offline-bar]').textContent()).toContain('Offline — changes are kept on this device')
   await drawOnPlan(page, 'bed', [0.3, 0.3], [0.6, 0.6])
-  await expect.poll(() => elementNames(page)).toContain('Bed')
+  await expect.poll(() => elementNames(page), { timeout: 15_000 }).toContain('Bed')
   await expect.poll(() => saveState(page), { timeout: 10_000 }).toBe('offline')
-  await expect.poll(() => keptOnDevice(page, id)).toEqual({ unsaved: true, areas: 1 })
+  await expect.poll(() => keptOnDevice(page, id), { timeout: 15_000 }).toEqual({ unsaved: true, areas: 1 })
   await page.close()
 
   const again = await context.newPage()
   await again.goto(`/yards/${id}`)
   await waitForPlan(again)
   await again.locator('[data-test=restored-edits]').waitFor()
-  await expect.poll(() => elementNames(again)).toContain('Bed')
+  await expect.poll(() => elementNames(again), { timeout: 15_000 }).toContain('Bed')
   await expect.poll(() => saveState(again), { timeout: 10_000 }).toBe('offline')
   return again
 }
@@ -105,7 +105,7 @@ describe('the editor offline', () => {
     await expect.poll(async () => (await savedDocument(context, id)).document.areas.map((a) => a.kind), { timeout: 20_000 }).toEqual(['bed'])
     await expect.poll(() => saveState(page), { timeout: 10_000 }).toBe('saved')
     expect((await savedDocument(context, id)).version).toBe(before.version + 1)
-    await expect.poll(() => keptOnDevice(page, id)).toEqual({ unsaved: false, areas: 1 })
+    await expect.poll(() => keptOnDevice(page, id), { timeout: 15_000 }).toEqual({ unsaved: false, areas: 1 })
     expect(await page.locator('[data-test=offline-bar]').count()).toBe(0)
     expect(outsideRequests(requests)).toEqual([])
     await context.close()
@@ -115,6 +115,7 @@ describe('the editor offline', () => {
     const { context, email } = await register()
     const id = await newYard(context)
     const page = await editOfflineAcrossATab(context, id)
+    expect((await savedDocument(context, id)).version).toBe(1)
     // meanwhile the same person saves from another browser that is online
     const other = await sameAccountElsewhere(email)
     const otherTab = await other.newPage()
@@ -153,7 +154,7 @@ describe('a site visit offline', () => {
     await page.reload()
     await page.locator('[data-test=visit-notes]').fill('Swale by the downspout stays wet into June.')
     await page.locator('[data-test=save-notes]').click()
-    await expect.poll(() => page.locator('[data-test=notes-state]').textContent()).toContain('kept on this device')
+    await expect.poll(() => page.locator('[data-test=notes-state]').textContent(), { timeout: 15_000 }).toContain('kept on this device')
     const png = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPhfDwAChwGA60e6kgAAAABJRU5ErkJggg==', 'base64')
     await page.locator('#photo-caption').fill('North bed')
     await page.locator('[data-test=photo-input]').setInputFiles({ name: 'north-bed.png', mimeType: 'image/png', buffer: png })
@@ -162,14 +163,14 @@ describe('a site visit offline', () => {
 
     const again = await context.newPage()
     await again.goto(`/visits/${visitId}`)
-    await expect.poll(() => again.locator('[data-test=visit-notes]').inputValue()).toBe('Swale by the downspout stays wet into June.')
+    await expect.poll(() => again.locator('[data-test=visit-notes]').inputValue(), { timeout: 15_000 }).toBe('Swale by the downspout stays wet into June.')
     await again.locator('[data-test=pending-photo]').waitFor()
     await context.setOffline(false)
     await expect.poll(async () => {
       const v = await (await context.request.get(`/api/visits/${visitId}`)).json() as { notes: string; photos: Array<{ caption: string }> }
       return { notes: v.notes, photos: v.photos.map((p) => p.caption) }
     }, { timeout: 20_000 }).toEqual({ notes: 'Swale by the downspout stays wet into June.', photos: ['North bed'] })
-    await expect.poll(() => again.locator('[data-test=pending-photo]').count()).toBe(0)
+    await expect.poll(() => again.locator('[data-test=pending-photo]').count(), { timeout: 15_000 }).toBe(0)
     await context.close()
   })
 })
