@@ -97,6 +97,11 @@ export default defineNuxtConfig({
       include: ['konva', 'vue-konva', 'polygon-clipping', 'chart.js', 'vue-chartjs', 'papaparse'],
     },
   },
+  // links fetch (and run) the next page's code when touched or hovered, not as soon as they are on screen: on a
+  // phone that idle work and its bandwidth would land while the page itself is still loading
+  experimental: {
+    defaults: { nuxtLink: { prefetchOn: 'interaction' } },
+  },
   typescript: {
     strict: true,
   },
