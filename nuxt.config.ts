@@ -100,7 +100,7 @@ export default defineNuxtConfig({
   // links fetch (and run) the next page's code when touched or hovered, not as soon as they are on screen: on a
   // phone that idle work and its bandwidth would land while the page itself is still loading
   experimental: {
-    defaults: { nuxtLink: { prefetchOn: 'interaction' } },
+    defaults: { nuxtLink: { prefetchOn: { interaction: true, visibility: false } } },
   },
   typescript: {
     strict: true,
