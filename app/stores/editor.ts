@@ -22,128 +22,23 @@
 import { defineStore } from 'pinia'
 import { computed, ref, shallowRef, triggerRef } from 'vue'
 import { emptyYardDocument, isAreaPlanting, type YardArea, type YardDocument, type YardLine, type YardPlanting } from '#shared/schemas/yard-document'
-import { METRES_PER_FOOT, type Units } from '#shared/utils/units'
-import { ringArea, type Point } from '#shared/utils/polygon'
+import type { Units } from '#shared/utils/units'
+import type { Point } from '#shared/utils/polygon'
+import { allIds, deleteElements, duplicateElements, findElement, layeredShapes, LOT_ID, newId, shiftZ, snapStep, translateElements, type Element } from '#shared/utils/yard-edits'
 import type { Score, Share } from '#shared/schemas/score'
 
-export type YardAccessLevel = 'owner' | 'edit' | 'view'
-export type Element =
-  | { type: 'lot'; id: 'lot'; points: Point[] }
-  | { type: 'area'; id: string; item: YardArea }
-  | { type: 'planting'; id: string; item: YardPlanting }
-  | { type: 'line'; id: string; item: YardLine }
+// the pure edits and geometry live in shared/utils/yard-edits.ts; re-exported for the editor's components
+export * from '#shared/utils/yard-edits'
+export { pointInRing as pointInPolygon } from '#shared/utils/polygon'
+export { distanceToSegment, type Box } from '#shared/utils/geometry'
 
-export const LOT_ID = 'lot'
+export type YardAccessLevel = 'owner' | 'edit' | 'view'
 export const HISTORY_LIMIT = 150
 
 /** Something outside the document an edit stands for, to be taken back on undo and made again on redo. */
 export interface HistoryEffect { kind: 'accept-recommendation'; recommendationId: number }
 interface HistoryEntry { label: string; doc: string; selection: string[]; effect?: HistoryEffect }
 export type HistoryListener = (effect: HistoryEffect, direction: 'undo' | 'redo') => void
-
-// ---------- pure helpers (unit-tested) ----------
-
-/** Grid step for snapping: half a foot, or ten centimetres, in metres. */
-export function snapStep(units: Units): number {
-  return units === 'ft' ? 0.5 * METRES_PER_FOOT : 0.1
-}
-
-export function snapValue(v: number, step: number): number {
-  // round to the grid, then to a micrometre so that 0.1 m steps do not drift into 0.30000000000000004
-  return Math.round(Math.round(v / step) * step * 1e6) / 1e6
-}
-
-export function snapPoint(p: Point, step: number): Point {
-  return [snapValue(p[0], step), snapValue(p[1], step)]
-}
-
-/** Plants in a drift at on-centre spacing s in a triangular layout: area / (0.866 s²), rounded up. */
-export function driftPlantCount(points: Point[], spacing: number | null | undefined): number | null {
-  if (!spacing) return null
-  return Math.ceil(ringArea(points) / (0.866 * spacing * spacing))
-}
-
-export function newId(prefix: string, taken: Set<string>): string {
-  for (;;) {
-    const id = `${prefix}${Math.random().toString(36).slice(2, 8)}`
-    if (!taken.has(id)) return id
-  }
-}
-
-export function allIds(doc: YardDocument): Set<string> {
-  return new Set([LOT_ID, ...doc.areas.map((a) => a.id), ...doc.plantings.map((p) => p.id), ...doc.lines.map((l) => l.id)])
-}
-
-export function findElement(doc: YardDocument, id: string): Element | null {
-  if (id === LOT_ID) return doc.boundary.length ? { type: 'lot', id: LOT_ID, points: doc.boundary as Point[] } : null
-  const area = doc.areas.find((a) => a.id === id)
-  if (area) return { type: 'area', id, item: area }
-  const planting = doc.plantings.find((p) => p.id === id)
-  if (planting) return { type: 'planting', id, item: planting }
-  const line = doc.lines.find((l) => l.id === id)
-  if (line) return { type: 'line', id, item: line }
-  return null
-}
-
-/** Moves every point of the listed elements by (dx, dy) metres. */
-export function translateElements(doc: YardDocument, ids: Iterable<string>, dx: number, dy: number): void {
-  const move = (pts: Point[]) => pts.forEach((p) => { p[0] += dx; p[1] += dy })
-  for (const id of ids) {
-    const el = findElement(doc, id)
-    if (!el) continue
-    if (el.type === 'lot') move(doc.boundary as Point[])
-    else if (el.type === 'planting' && !isAreaPlanting(el.item)) { el.item.x = (el.item.x ?? 0) + dx; el.item.y = (el.item.y ?? 0) + dy }
-    else move((el.item as { points: Point[] }).points)
-  }
-}
-
-/** Copies of the listed elements (not the lot), offset by (dx, dy), with fresh ids. Returns the new ids. */
-export function duplicateElements(doc: YardDocument, ids: string[], dx: number, dy: number): string[] {
-  const taken = allIds(doc)
-  const created: string[] = []
-  for (const id of ids) {
-    const el = findElement(doc, id)
-    if (!el || el.type === 'lot') continue
-    const copy = JSON.parse(JSON.stringify(el.item)) as typeof el.item
-    copy.id = newId(el.type === 'area' ? 'a' : el.type === 'planting' ? 'p' : 'l', taken)
-    taken.add(copy.id)
-    if (el.type === 'area') doc.areas.push(copy as YardArea)
-    else if (el.type === 'planting') doc.plantings.push(copy as YardPlanting)
-    else doc.lines.push(copy as YardLine)
-    created.push(copy.id)
-  }
-  translateElements(doc, created, dx, dy)
-  return created
-}
-
-export function deleteElements(doc: YardDocument, ids: Iterable<string>): void {
-  const gone = new Set(ids)
-  if (gone.has(LOT_ID)) doc.boundary = []
-  doc.areas = doc.areas.filter((a) => !gone.has(a.id))
-  doc.plantings = doc.plantings.filter((p) => !gone.has(p.id))
-  doc.lines = doc.lines.filter((l) => !gone.has(l.id))
-}
-
-/** The drawing order of areas and area plantings: by z, then by position in their list (later on top). */
-export function layeredShapes(doc: YardDocument): Array<YardArea | (YardPlanting & { points: Point[] })> {
-  const items: Array<{ item: YardArea | (YardPlanting & { points: Point[] }); z: number; order: number }> = []
-  doc.areas.forEach((a, i) => items.push({ item: a, z: a.z ?? 0, order: i }))
-  doc.plantings.forEach((p, i) => { if (isAreaPlanting(p)) items.push({ item: p, z: p.z ?? 0, order: 10_000 + i }) })
-  return items.sort((a, b) => a.z - b.z || a.order - b.order).map((x) => x.item)
-}
-
-/** Renumbers z so that the listed shapes move one step up (or down) past their neighbour. */
-export function shiftZ(doc: YardDocument, ids: string[], direction: 1 | -1): void {
-  const order = layeredShapes(doc)
-  const moving = new Set(ids)
-  const list = direction === 1 ? [...order].reverse() : [...order]
-  // bubble each moving shape past the next non-moving one
-  for (let i = 1; i < list.length; i++) {
-    if (moving.has(list[i]!.id) && !moving.has(list[i - 1]!.id)) [list[i - 1], list[i]] = [list[i]!, list[i - 1]!]
-  }
-  const final = direction === 1 ? list.reverse() : list
-  final.forEach((item, i) => { item.z = i })
-}
 
 // ---------- the store ----------
 
@@ -348,7 +243,17 @@ export const useEditorViewStore = defineStore('editor-view', () => {
   const plantChoice = ref<PlantChoice>({ species: null })
   const score = shallowRef<ScoreResult | null>(null)
   const scoreState = ref<'idle' | 'scoring' | 'unavailable' | 'error'>('idle')
-  const statusById = computed(() => new Map((score.value?.plantings ?? []).map((p) => [p.id, p])))
+  // the same map while no planting's line changed, so a drag that moves a plant within the lot redraws nothing else
+  let lastLines = new Map<string, Score['plantings'][number]>()
+  const statusById = computed(() => {
+    const lines = score.value?.plantings ?? []
+    const same = lines.length === lastLines.size && lines.every((l) => {
+      const o = lastLines.get(l.id)
+      return o !== undefined && o.status === l.status && o.layer === l.layer && o.count === l.count && o.area === l.area && o.volume === l.volume && o.cultivar === l.cultivar
+    })
+    if (!same) lastLines = new Map(lines.map((p) => [p.id, p]))
+    return lastLines
+  })
   const message = ref<{ text: string; kind: 'info' | 'error' } | null>(null)
   let timer: ReturnType<typeof setTimeout> | undefined
   function say(text: string, kind: 'info' | 'error' = 'info') {
@@ -358,94 +263,10 @@ export const useEditorViewStore = defineStore('editor-view', () => {
   }
   // advisors' pins from site visits, drawn over the plan (not part of the document)
   const pins = shallowRef<VisitPin[]>([])
-  return { tool, shape, snapping, plantChoice, score, scoreState, statusById, message, say, pins }
+  // while elements are dragged: where they are now (not yet in the document), so the score can follow
+  const dragPreview = shallowRef<Map<string, { x?: number; y?: number; spread?: number; points?: Point[] }> | null>(null)
+  return { tool, shape, snapping, plantChoice, score, scoreState, statusById, message, say, pins, dragPreview }
 })
 
 export interface VisitPin { id: number; x: number; y: number; comment: string }
 
-// ---------- geometry for hit-testing and cautions (pure, unit-tested) ----------
-
-export function distanceToSegment(p: Point, a: Point, b: Point): number {
-  const dx = b[0] - a[0]
-  const dy = b[1] - a[1]
-  const len2 = dx * dx + dy * dy
-  const t = len2 ? Math.max(0, Math.min(1, ((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / len2)) : 0
-  return Math.hypot(p[0] - (a[0] + t * dx), p[1] - (a[1] + t * dy))
-}
-
-export function distanceToPolyline(p: Point, pts: Point[], closed = false): number {
-  let best = Infinity
-  const n = pts.length
-  for (let i = 0; i < (closed ? n : n - 1); i++) best = Math.min(best, distanceToSegment(p, pts[i]!, pts[(i + 1) % n]!))
-  return best
-}
-
-/** 0 inside the polygon, else the distance to its edge. */
-export function distanceToPolygon(p: Point, pts: Point[]): number {
-  return pointInPolygon(p, pts) ? 0 : distanceToPolyline(p, pts, true)
-}
-
-export function pointInPolygon(p: Point, ring: Point[]): boolean {
-  let inside = false
-  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-    const [xi, yi] = ring[i]!
-    const [xj, yj] = ring[j]!
-    if ((yi > p[1]) !== (yj > p[1]) && p[0] < ((xj - xi) * (p[1] - yi)) / (yj - yi) + xi) inside = !inside
-  }
-  return inside
-}
-
-export interface Box { minX: number; minY: number; maxX: number; maxY: number }
-
-export function boundsOf(points: Point[]): Box {
-  const box = { minX: Infinity, minY: Infinity, maxX: -Infinity, maxY: -Infinity }
-  for (const [x, y] of points) {
-    box.minX = Math.min(box.minX, x); box.maxX = Math.max(box.maxX, x)
-    box.minY = Math.min(box.minY, y); box.maxY = Math.max(box.maxY, y)
-  }
-  return box
-}
-
-/** Radius drawn for a point planting: one plant's spread, or a clump of `count` plants with the same area. */
-export function plantRadius(p: YardPlanting, fallbackSpread = 1): number {
-  return ((p.spread ?? fallbackSpread) / 2) * Math.sqrt(Math.max(1, p.count ?? 1))
-}
-
-export function elementBounds(doc: YardDocument, id: string): Box | null {
-  const el = findElement(doc, id)
-  if (!el) return null
-  if (el.type === 'lot') return boundsOf(el.points)
-  if (el.type === 'planting' && !isAreaPlanting(el.item)) {
-    const r = plantRadius(el.item)
-    const x = el.item.x ?? 0
-    const y = el.item.y ?? 0
-    return { minX: x - r, minY: y - r, maxX: x + r, maxY: y + r }
-  }
-  return boundsOf((el.item as { points: Point[] }).points)
-}
-
-/**
- * The topmost element under a point: point plantings first (smallest on top), then lines, then areas and
- * drifts from the top of the z-order, then the lot's edge. `tolerance` is in metres (a few pixels).
- */
-export function hitTest(doc: YardDocument, p: Point, tolerance: number): string | null {
-  let best: { id: string; r: number } | null = null
-  for (const pl of doc.plantings) {
-    if (isAreaPlanting(pl)) continue
-    const r = plantRadius(pl)
-    const d = Math.hypot(p[0] - (pl.x ?? 0), p[1] - (pl.y ?? 0))
-    if (d <= r + tolerance && (!best || r < best.r)) best = { id: pl.id, r }
-  }
-  if (best) return best.id
-  for (const line of doc.lines) if (distanceToPolyline(p, line.points as Point[]) <= tolerance * 2) return line.id
-  const shapes = layeredShapes(doc)
-  for (let i = shapes.length - 1; i >= 0; i--) if (pointInPolygon(p, shapes[i]!.points as Point[])) return shapes[i]!.id
-  if (doc.boundary.length && distanceToPolyline(p, doc.boundary as Point[], true) <= tolerance * 2) return LOT_ID
-  return null
-}
-
-/** Ids of elements whose bounds lie wholly inside the box (the lot only when asked). */
-export function elementsInBox(doc: YardDocument, box: Box): string[] {
-  const inside = (b: Box | null) => !!b && b.minX >= box.minX && b.maxX <= box.maxX && b.minY >= box.minY && b.maxY <= box.maxY
-  return [...doc.areas, ...doc.plantings, ...doc.lines].map((e) => e.id).filter((id) => inside(elementBounds(doc, id)))
-}

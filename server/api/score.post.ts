@@ -1,10 +1,10 @@
-// The score of a yard as the editor sends it on every change: the whole document, or its changes against the
-// basis of an earlier answer (see server/services/score-basis.ts). Nothing is stored in the database.
-import { scoreRequest } from '#shared/schemas/score'
-import { scoreForRequest } from '../services/score-basis'
+// The score of a posted yard document, worked out whole on every request; nothing is kept or stored.
+// (The editor scores in the browser with the same engine; this is for API clients and checks.)
+import { yardDocument } from '#shared/schemas/yard-document'
+import { scoreDocument } from '../services/scoring'
 
 export default defineEventHandler(async (event) => {
-  const request = await readBodyWith(event, scoreRequest)
-  const userId = await requireSignedIn(event)
-  return scoreForRequest(userId, request)
+  const doc = await readBodyWith(event, yardDocument)
+  await requireUser(event)
+  return scoreDocument(doc)
 })

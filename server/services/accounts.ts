@@ -2,7 +2,7 @@ import type { H3Event } from 'h3'
 import { and, eq, gt, isNull, sql, count } from 'drizzle-orm'
 import { createHash, randomBytes } from 'node:crypto'
 import { users, passwordResetTokens, loginFailures } from '../database/schema'
-import type { AccountRow } from '../utils/auth'
+import type { AccountRow } from '../database/schema'
 import { acceptInvite } from './sharing'
 
 const THROTTLE_WINDOW_MS = 15 * 60 * 1000

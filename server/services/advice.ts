@@ -3,7 +3,7 @@
 import { and, eq, inArray, desc, sql, count } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/mysql-core'
 import { users, yards, adviceRequests, siteVisits, visitPins, visitPhotos, recommendations } from '../database/schema'
-import type { AccountRow, YardRow } from '../utils/auth'
+import type { AccountRow, YardRow } from '../database/schema'
 import { yardAccessLevel } from './yard-access'
 
 export type AdviceRequestRow = typeof adviceRequests.$inferSelect

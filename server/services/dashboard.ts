@@ -1,8 +1,9 @@
 // The coordinator's dashboard for a drive: each figure is one aggregate query over the pledges' indexed
 // columns (never a loop over yards). Only pledges whose households consented count, and no row names a yard,
 // its address or its owner.
+import { GOAL_TOLERANCE } from '#shared/utils/score/goal'
 import { and, eq, gte, lte, asc, desc, like, sql, type SQL } from 'drizzle-orm'
-import { drives, pledges, shareSnapshots, driveSummaries, driveViewCache, type DriveRow } from '../database/schema'
+import { pledges, shareSnapshots, driveSummaries, driveViewCache, type DriveRow } from '../database/schema'
 import type { PledgesQuery } from '#shared/schemas/drives'
 import { driveView, shareColumn, today } from './drives'
 
@@ -63,32 +64,11 @@ const isFresh = (body: unknown, bodyVersion: number | null, version: number, com
   !!body && bodyVersion === version && !!computedAt && Date.now() - computedAt.getTime() < SUMMARY_MAX_AGE_MS
 
 /**
- * The summary for `current` or a drive id, from the shared cache when nothing changed since it was computed:
- * the drive and its cache row come in one query, so an unchanged drive costs that query only.
+ * A dashboard view of a drive (summary, progress, neighbourhoods) from the shared cache while the drive's pledges
+ * have not changed since it was computed (and for at most a minute); computed and stored otherwise. The drive's
+ * version and the stored view come in one query.
  */
-export async function cachedDriveSummary(id: number | 'current'): Promise<DriveSummary> {
-  const db = useDb()
-  const d = today()
-  const [row] = await db.select({ drive: drives, cache: driveSummaries }).from(drives)
-    .leftJoin(driveSummaries, eq(driveSummaries.driveId, drives.id))
-    .where(id === 'current' ? and(lte(drives.startsOn, d), gte(drives.endsOn, d)) : eq(drives.id, id))
-    .orderBy(desc(drives.startsOn), desc(drives.id)).limit(1)
-  if (!row) throw createError({ status: 404, message: id === 'current' ? 'No pledge drive is running' : 'No such drive' })
-  const cache = row.cache
-  if (cache && isFresh(cache.body, cache.bodyVersion, cache.version, cache.computedAt)) return cache.body as DriveSummary
-  // the version read before computing: a change made meanwhile leaves the stored body out of date, as it should
-  const version = cache?.version ?? 1
-  if (!cache) await db.insert(driveSummaries).ignore().values({ driveId: row.drive.id, version })
-  const body = await driveSummary(row.drive)
-  await db.update(driveSummaries).set({ body, bodyVersion: version, computedAt: new Date() }).where(eq(driveSummaries.driveId, row.drive.id))
-  return body
-}
-
-/**
- * A dashboard view of a drive (progress, neighbourhoods) from the shared cache while the drive's pledges have not
- * changed since it was computed (and for at most a minute, as the summary); computed and stored otherwise.
- */
-export async function cachedDriveView<T extends object>(drive: DriveRow, view: 'progress' | 'neighbourhoods', compute: (drive: DriveRow) => Promise<T>): Promise<T> {
+export async function cachedDriveView<T extends object>(drive: DriveRow, view: 'summary' | 'progress' | 'neighbourhoods', compute: (drive: DriveRow) => Promise<T>): Promise<T> {
   const db = useDb()
   const [row] = await db.select({ version: driveSummaries.version, body: driveViewCache.body, bodyVersion: driveViewCache.bodyVersion, computedAt: driveViewCache.computedAt })
     .from(driveSummaries).leftJoin(driveViewCache, and(eq(driveViewCache.driveId, driveSummaries.driveId), eq(driveViewCache.view, view)))
@@ -118,10 +98,12 @@ export async function driveProgress(drive: DriveRow) {
   const end = drive.endsOn < today() ? drive.endsOn : today()
   const snapCol = drive.certifies === 'count' ? shareSnapshots.countShare : drive.certifies === 'area' ? shareSnapshots.areaShare : shareSnapshots.volumeShare
   const goal = Number(drive.goal)
+  // meetsGoal in SQL: at or above the goal, less the same rounding tolerance
+  const atGoal = goal - GOAL_TOLERANCE
   const [changes] = await db.execute(sql`
     SELECT d.day AS day, SUM(d.delta) AS delta FROM (
       SELECT ${shareSnapshots.day} AS day,
-        (${snapCol} >= ${goal}) - COALESCE(LAG(${snapCol} >= ${goal}) OVER (PARTITION BY ${shareSnapshots.yardId} ORDER BY ${shareSnapshots.day}), 0) AS delta
+        (${snapCol} >= ${atGoal}) - COALESCE(LAG(${snapCol} >= ${atGoal}) OVER (PARTITION BY ${shareSnapshots.yardId} ORDER BY ${shareSnapshots.day}), 0) AS delta
       FROM ${shareSnapshots} JOIN ${pledges} ON ${pledges.yardId} = ${shareSnapshots.yardId}
       WHERE ${pledges.driveId} = ${drive.id} AND ${pledges.consent} = 1 AND ${shareSnapshots.day} >= ${pledges.pledgedOn} AND ${shareSnapshots.day} <= ${end}
     ) d GROUP BY d.day`) as unknown as [Array<{ day: string | Date; delta: unknown }>]

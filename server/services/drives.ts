@@ -4,28 +4,29 @@ import { and, eq, gte, lte, desc, inArray, sql } from 'drizzle-orm'
 import { drives, pledges, shareSnapshots, driveMailings, driveMailDeliveries, driveSummaries, yards, users, organisation, type DriveRow, type PledgeRow } from '../database/schema'
 import type { YardDocument } from '#shared/schemas/yard-document'
 import type { ShareSet } from '#shared/schemas/advice'
-import type { AccountRow, YardRow } from '../utils/auth'
-import { scoreDocument, measureYard, factsKey } from './scoring'
-import { loadSpeciesFacts } from './species-lookup'
+import type { AccountRow, YardRow } from '../database/schema'
+import { GOAL_TOLERANCE, measureYard, meetsGoal, sharesOf, tallyYard } from '#shared/utils/score'
+import { yardFacts } from './scoring'
 import { enqueueJobs, jobProgress } from './jobs'
 
 export type ShareKind = 'count' | 'area' | 'volume'
 export const DRIVE_MAIL_JOB = 'drive-mail'
+// the database or a transaction on it: writes that go together take the transaction
+type DbOrTx = Db | Parameters<Parameters<Db['transaction']>[0]>[0]
 
 export const today = () => new Date().toISOString().slice(0, 10)
 
 /** Marks a drive's cached dashboard summary out of date; every change to its pledges or settings calls this. */
-export async function bumpDriveVersion(driveId: number) {
-  await useDb().insert(driveSummaries).values({ driveId, version: 1 }).onDuplicateKeyUpdate({ set: { version: sql`${driveSummaries.version} + 1` } })
+export async function bumpDriveVersion(driveId: number, db: DbOrTx = useDb()) {
+  await db.insert(driveSummaries).values({ driveId, version: 1 }).onDuplicateKeyUpdate({ set: { version: sql`${driveSummaries.version} + 1` } })
 }
 
 /** The shares of a document as the score engine gives them, plus the visible lawn area (m²). */
 export async function yardShares(doc: YardDocument, region: string): Promise<{ shares: ShareSet; lawnArea: number }> {
-  const score = await scoreDocument(doc, region)
-  const names = new Set(doc.plantings.flatMap((p) => (p.species ? [factsKey(p.species)] : [])))
-  const facts = names.size ? await loadSpeciesFacts(names, region) : new Map()
-  const lawnArea = measureYard(doc, facts, region).plantings.filter((p) => p.lawn).reduce((s, p) => s + p.area, 0)
-  return { shares: score.shares, lawnArea }
+  const measured = measureYard(doc, await yardFacts(doc, region), region)
+  const lawnArea = measured.plantings.filter((p) => p.lawn).reduce((s, p) => s + p.area, 0)
+  const tally = tallyYard(measured.plantings)
+  return { shares: sharesOf(tally.native, tally.total), lawnArea }
 }
 
 /** The share columns kept on a pledge and a snapshot (a share with nothing to share is stored as 0). */
@@ -43,7 +44,7 @@ export const shareColumn = (kind: ShareKind) => (kind === 'count' ? pledges.coun
 function statusFor(drive: DriveRow, current: PledgeRow['status'] | null, cols: ReturnType<typeof shareColumns>): PledgeRow['status'] {
   if (current === 'verified') return 'verified'
   const share = drive.certifies === 'count' ? cols.countShare : drive.certifies === 'area' ? cols.areaShare : cols.volumeShare
-  return share >= Number(drive.goal) ? 'reached' : 'pledged'
+  return meetsGoal(share, Number(drive.goal)) ? 'reached' : 'pledged'
 }
 
 export async function runningDrive(): Promise<DriveRow | null> {
@@ -78,17 +79,18 @@ export async function createDrive(user: AccountRow, input: DriveInput) {
   return driveView(await requireDrive(id))
 }
 
-/** Saves a drive; a new goal or certifying share re-derives every pledge's status in one statement. */
+/** Saves a drive; a new goal or certifying share re-derives every pledge's status, all in one transaction. */
 export async function updateDrive(id: number, input: DriveInput) {
   await requireDrive(id)
   await assertNoOverlap(input, id)
-  const db = useDb()
-  await db.update(drives).set(input).where(eq(drives.id, id))
   const col = shareColumn(input.certifies)
-  await db.update(pledges).set({
-    status: sql`CASE WHEN ${pledges.status} = 'verified' THEN 'verified' WHEN ${col} >= ${input.goal} THEN 'reached' ELSE 'pledged' END`,
-  }).where(eq(pledges.driveId, id))
-  await bumpDriveVersion(id)
+  await useDb().transaction(async (tx) => {
+    await tx.update(drives).set(input).where(eq(drives.id, id))
+    await tx.update(pledges).set({
+      status: sql`CASE WHEN ${pledges.status} = 'verified' THEN 'verified' WHEN ${col} >= ${input.goal - GOAL_TOLERANCE} THEN 'reached' ELSE 'pledged' END`,
+    }).where(eq(pledges.driveId, id))
+    await bumpDriveVersion(id, tx)
+  })
   return driveView(await requireDrive(id))
 }
 
@@ -120,34 +122,39 @@ export async function pledgeYard(owner: AccountRow, yard: YardRow, input: { neig
   const drive = await runningDrive()
   if (!drive) throw createError({ status: 409, message: 'No pledge drive is running just now' })
   const cols = shareColumns(await yardShares(yard.document, yard.region))
-  const db = useDb()
-  const [existing] = await db.select().from(pledges).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id))).limit(1)
-  const status = statusFor(drive, existing?.status ?? null, cols)
-  if (existing) {
-    await db.update(pledges).set({ ...input, ...cols, status }).where(eq(pledges.id, existing.id))
-  } else {
-    const base = drive.certifies === 'count' ? cols.countShare : drive.certifies === 'area' ? cols.areaShare : cols.volumeShare
-    await db.insert(pledges).values({
-      driveId: drive.id, yardId: yard.id, userId: owner.id, ...input, pledgedOn: today(), ...cols, status,
-      baseAreaNative: cols.areaNative, baseLawnArea: cols.lawnArea, baseShare: base, reachedAt: status === 'reached' ? new Date() : null,
-    }).onDuplicateKeyUpdate({ set: { neighbourhood: input.neighbourhood, consent: input.consent } })
-  }
-  await upsertSnapshot(yard.id, cols)
-  await bumpDriveVersion(drive.id)
-  const [p] = await db.select().from(pledges).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id))).limit(1)
+  // the pledge, the day's snapshot and the drive's version change together; the pledge row is locked while read
+  const { existing, p } = await useDb().transaction(async (tx) => {
+    const [existing] = await tx.select().from(pledges).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id))).limit(1).for('update')
+    const status = statusFor(drive, existing?.status ?? null, cols)
+    if (existing) {
+      await tx.update(pledges).set({ ...input, ...cols, status }).where(eq(pledges.id, existing.id))
+    } else {
+      const base = drive.certifies === 'count' ? cols.countShare : drive.certifies === 'area' ? cols.areaShare : cols.volumeShare
+      await tx.insert(pledges).values({
+        driveId: drive.id, yardId: yard.id, userId: owner.id, ...input, pledgedOn: today(), ...cols, status,
+        baseAreaNative: cols.areaNative, baseLawnArea: cols.lawnArea, baseShare: base, reachedAt: status === 'reached' ? new Date() : null,
+      }).onDuplicateKeyUpdate({ set: { neighbourhood: input.neighbourhood, consent: input.consent } })
+    }
+    await upsertSnapshot(yard.id, cols, today(), tx)
+    await bumpDriveVersion(drive.id, tx)
+    const [p] = await tx.select().from(pledges).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id))).limit(1)
+    return { existing, p }
+  })
   return { created: !existing, drive: driveView(drive), pledge: pledgeView(p!, drive) }
 }
 
 export async function withdrawPledge(yardId: number) {
   const drive = await requireDrive('current')
-  const [r] = await useDb().delete(pledges).where(and(eq(pledges.yardId, yardId), eq(pledges.driveId, drive.id)))
-  if (r.affectedRows === 0) throw createError({ status: 404, message: 'This yard is not pledged to the running drive' })
-  await bumpDriveVersion(drive.id)
+  await useDb().transaction(async (tx) => {
+    const [r] = await tx.delete(pledges).where(and(eq(pledges.yardId, yardId), eq(pledges.driveId, drive.id)))
+    if (r.affectedRows === 0) throw createError({ status: 404, message: 'This yard is not pledged to the running drive' })
+    await bumpDriveVersion(drive.id, tx)
+  })
 }
 
-async function upsertSnapshot(yardId: number, cols: ReturnType<typeof shareColumns>, day = today()) {
+async function upsertSnapshot(yardId: number, cols: ReturnType<typeof shareColumns>, day = today(), db: DbOrTx = useDb()) {
   // one row per yard per day: the day's last save wins
-  await useDb().insert(shareSnapshots).values({ yardId, day, ...cols }).onDuplicateKeyUpdate({ set: cols })
+  await db.insert(shareSnapshots).values({ yardId, day, ...cols }).onDuplicateKeyUpdate({ set: cols })
 }
 
 /**
@@ -160,12 +167,14 @@ export async function recordPledgedShares(yard: YardRow) {
     .where(and(eq(pledges.yardId, yard.id), gte(drives.endsOn, today())))
   if (!rows.length) return
   const cols = shareColumns(await yardShares(yard.document, yard.region))
-  for (const { pledge, drive } of rows) {
-    const status = statusFor(drive, pledge.status, cols)
-    await db.update(pledges).set({ ...cols, status, reachedAt: status === 'reached' && !pledge.reachedAt ? new Date() : pledge.reachedAt }).where(eq(pledges.id, pledge.id))
-    await bumpDriveVersion(drive.id)
-  }
-  await upsertSnapshot(yard.id, cols)
+  await db.transaction(async (tx) => {
+    for (const { pledge, drive } of rows) {
+      const status = statusFor(drive, pledge.status, cols)
+      await tx.update(pledges).set({ ...cols, status, reachedAt: status === 'reached' && !pledge.reachedAt ? new Date() : pledge.reachedAt }).where(eq(pledges.id, pledge.id))
+      await bumpDriveVersion(drive.id, tx)
+    }
+    await upsertSnapshot(yard.id, cols, today(), tx)
+  })
 }
 
 /** An advisor on a visit confirms the running drive's pledge of a yard that has reached the goal. */
@@ -176,8 +185,10 @@ export async function verifyPledge(advisor: AccountRow, yardId: number) {
   if (!p) throw createError({ status: 404, message: 'This yard is not pledged to the running drive' })
   if (p.status === 'pledged') throw createError({ status: 409, message: `The yard has not reached the goal by ${drive.certifies} yet, so it cannot be verified` })
   if (p.status !== 'verified') {
-    await db.update(pledges).set({ status: 'verified', verifiedAt: new Date(), verifiedBy: advisor.id }).where(eq(pledges.id, p.id))
-    await bumpDriveVersion(drive.id)
+    await db.transaction(async (tx) => {
+      await tx.update(pledges).set({ status: 'verified', verifiedAt: new Date(), verifiedBy: advisor.id }).where(eq(pledges.id, p.id))
+      await bumpDriveVersion(drive.id, tx)
+    })
   }
   const [fresh] = await db.select().from(pledges).where(eq(pledges.id, p.id))
   return pledgeView(fresh!, drive)

@@ -1,6 +1,6 @@
+// The organisation running Wildward (one row): its name and the goal share every yard is scored against.
 import { organisation } from '../database/schema'
-
-export const DEFAULT_GOAL = 0.7
+import { DEFAULT_GOAL } from '#shared/utils/score/goal'
 
 export async function ensureOrganisation() {
   const db = useDb()
@@ -8,16 +8,15 @@ export async function ensureOrganisation() {
   if (!row) await db.insert(organisation).values({ id: 1, name: 'Our native yards group', goal: DEFAULT_GOAL }).onDuplicateKeyUpdate({ set: { id: 1 } })
 }
 
-// the editor re-scores on every change and the goal almost never changes (there is no route that sets it), so
-// each instance re-reads it at most every few seconds
-const GOAL_TTL_MS = 5_000
-let goalCache: { goal: number; until: number } | null = null
-
-/** The organisation's goal share (default 0.70). */
+/** The organisation's goal share (default 0.70), read fresh: a coordinator may change it at any time. */
 export async function organisationGoal(): Promise<number> {
-  if (goalCache && goalCache.until > Date.now()) return goalCache.goal
   const [row] = await useDb().select({ goal: organisation.goal }).from(organisation).limit(1)
-  const goal = row ? Number(row.goal) : DEFAULT_GOAL
-  goalCache = { goal, until: Date.now() + GOAL_TTL_MS }
-  return goal
+  return row ? Number(row.goal) : DEFAULT_GOAL
+}
+
+/** Sets the goal share (validated 0.50–1.00 by the route) and answers it as stored. */
+export async function setOrganisationGoal(goal: number): Promise<number> {
+  await ensureOrganisation()
+  await useDb().update(organisation).set({ goal })
+  return organisationGoal()
 }

@@ -3,7 +3,7 @@
 import { and, eq, inArray, sql } from 'drizzle-orm'
 import { createEvents, type EventAttributes } from 'ics'
 import { seedPlans, seedPrices } from '../database/schema'
-import type { YardRow } from '../utils/auth'
+import type { YardRow } from '../database/schema'
 import { getSpeciesDetails } from './catalogue'
 import {
   computeSeedPlan, frostDates, plantsBySpecies, speciesKey, DEFAULT_MARGIN, isoDate, parseIsoDate, addDays,

@@ -3,7 +3,7 @@
 import { and, desc, eq, inArray, sql } from 'drizzle-orm'
 import { randomBytes, createHash } from 'node:crypto'
 import { calendarTokens, jobs, seedReminderSubscriptions, users, yards } from '../database/schema'
-import type { AccountRow, YardRow } from '../utils/auth'
+import type { AccountRow, YardRow } from '../database/schema'
 import { enqueueJobs, cancelPendingJobs, JobCancelled, type NewJob } from './jobs'
 import { yardAccessLevel } from './yard-access'
 import { seedPlanFor } from './seed-plan'

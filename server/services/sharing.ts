@@ -3,7 +3,7 @@
 import { and, eq, gt, isNull, desc, sql } from 'drizzle-orm'
 import { createHash, randomBytes } from 'node:crypto'
 import { users, yards, yardMembers, yardInvites } from '../database/schema'
-import type { AccountRow, YardRow } from '../utils/auth'
+import type { AccountRow, YardRow } from '../database/schema'
 
 const INVITE_TTL_MS = 30 * 24 * 60 * 60 * 1000
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex')

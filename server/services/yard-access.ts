@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import { yardMembers, adviceRequests, pledges } from '../database/schema'
-import type { AccountRow, YardRow } from '../utils/auth'
+import type { AccountRow, YardRow } from '../database/schema'
 
 export type YardAccess = 'view' | 'edit' | 'owner'
 

@@ -2,7 +2,7 @@ import { and, eq, or, desc, inArray, sql } from 'drizzle-orm'
 import { yards, yardMembers, users } from '../database/schema'
 import { emptyYardDocument, type YardDocument } from '#shared/schemas/yard-document'
 import type { CreateYardBody, UpdateYardBody } from '#shared/schemas/yard'
-import type { AccountRow, YardRow } from '../utils/auth'
+import type { AccountRow, YardRow } from '../database/schema'
 import type { YardAccess } from './yard-access'
 import { recordPledgedShares } from './drives'
 
@@ -62,7 +62,8 @@ export async function updateYard(yard: YardRow, access: YardAccess, body: Update
   }
   // a pledged yard keeps its drive shares current and gets the day's snapshot; the save stands even if this fails
   await recordPledgedShares(fresh!).catch((e) => console.error('[wildward] pledge shares after save:', (e as Error).message))
-  return yardView(fresh!, access)
+  // the editor has the document it sent: the answer is only what the save changed
+  return { id: fresh!.id, version: fresh!.version, updatedAt: fresh!.updatedAt }
 }
 
 /** Yards the user owns or is a member of, newest first (without their documents). */

@@ -1,32 +1,8 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import type { Role } from '#shared/types/roles'
-import { users, yards } from '../database/schema'
+import { users, yards, type AccountRow } from '../database/schema'
 import { yardAccessLevel, type YardAccess } from '../services/yard-access'
-
-export type AccountRow = typeof users.$inferSelect
-export type YardRow = typeof yards.$inferSelect
-
-// Unsealing the session cookie costs a few milliseconds of key derivation on every request; the editor scores
-// on every change, so each instance remembers, briefly, which user an exact sealed cookie value belongs to.
-// The same sealed string always unseals to the same session, and entries live far shorter than the session.
-const SESSION_MEMO_MS = 30_000
-const SESSION_MEMO_MAX = 10_000
-const sessionMemo = new Map<string, { userId: number; until: number }>()
-
-async function sessionUserId(event: H3Event): Promise<number | undefined> {
-  const raw = getCookie(event, useRuntimeConfig().session.name || 'nuxt-session')
-  const now = Date.now()
-  const hit = raw ? sessionMemo.get(raw) : undefined
-  if (hit && hit.until > now) return hit.userId
-  const session = await getUserSession(event)
-  const id = session.user?.id
-  if (raw && id) {
-    if (sessionMemo.size >= SESSION_MEMO_MAX) sessionMemo.delete(sessionMemo.keys().next().value!)
-    sessionMemo.set(raw, { userId: id, until: now + SESSION_MEMO_MS })
-  }
-  return id
-}
 
 /**
  * The signed-in user, re-read from the database so that a role change or a deleted account takes effect at once.
@@ -34,7 +10,7 @@ async function sessionUserId(event: H3Event): Promise<number | undefined> {
  */
 export async function requireUser(event: H3Event): Promise<AccountRow> {
   if (event.context.account) return event.context.account as AccountRow
-  const id = await sessionUserId(event)
+  const id = (await getUserSession(event)).user?.id
   if (!id) throw createError({ status: 401, message: 'Please sign in' })
   const [row] = await useDb().select().from(users).where(eq(users.id, id)).limit(1)
   if (!row) {
@@ -43,18 +19,6 @@ export async function requireUser(event: H3Event): Promise<AccountRow> {
   }
   event.context.account = row
   return row
-}
-
-/**
- * The signed-in user's id from the sealed session alone, without re-reading the account: for routes that read
- * and write nothing of anyone's and only need to know a person is signed in (scoring a posted document, which
- * the editor does on every change). Accounts are never deleted and scoring needs no role, so nothing a database
- * re-read could catch applies. 401 when nobody is signed in.
- */
-export async function requireSignedIn(event: H3Event): Promise<number> {
-  const id = await sessionUserId(event)
-  if (!id) throw createError({ status: 401, message: 'Please sign in' })
-  return id
 }
 
 /** The signed-in user when they hold one of `roles`; 403 otherwise. */

@@ -5,7 +5,6 @@ import * as schema from '../database/schema'
 export { schema }
 export type Db = MySql2Database<typeof schema>
 
-let pool: mysql.Pool | undefined
 let db: Db | undefined
 
 /** The Drizzle client over one mysql2 pool per app instance (many instances may share one MariaDB). */
@@ -13,21 +12,10 @@ export function useDb(): Db {
   if (!db) {
     const url = useRuntimeConfig().databaseUrl
     if (!url) throw createError({ status: 503, message: 'The database is not configured (NUXT_DATABASE_URL)' })
-    pool = mysql.createPool({ uri: url, connectionLimit: 20, waitForConnections: true, timezone: 'Z', dateStrings: false })
+    const pool = mysql.createPool({ uri: url, connectionLimit: 20, waitForConnections: true, timezone: 'Z', dateStrings: false })
     db = drizzle(pool, { schema, mode: 'default' })
   }
   return db
-}
-
-export function useDbPool(): mysql.Pool {
-  useDb()
-  return pool!
-}
-
-/** Raw first row of a mysql2 result from db.execute(). */
-export function firstRow<T>(result: unknown): T | undefined {
-  const rows = (result as [unknown[]])[0]
-  return rows?.[0] as T | undefined
 }
 
 /** The id from `$returningId()` of a single-row insert (MariaDB has no RETURNING in Drizzle). */

@@ -1,6 +1,8 @@
 import { z } from 'zod'
-import { LAYERS } from '../types/species'
-import { MAX_AREAS, MAX_PLANTINGS, yardArea, yardDocument, yardDocumentFields, yardPlanting, type YardDocument } from './yard-document'
+import { LAYERS, type SpeciesFacts } from '../types/species'
+import { regionCode } from './common'
+import { MAX_PLANTINGS } from './yard-document'
+import { GOAL_MAX, GOAL_MIN } from '../utils/score/goal'
 
 // The score of a yard, as POST /api/score and GET /api/yards/[id]/score answer it. Areas in m², volumes in m³.
 
@@ -55,49 +57,22 @@ export type Move = z.infer<typeof moveSchema>
 export type ScoreWarning = z.infer<typeof scoreSchema>['warnings'][number]
 export type Score = z.infer<typeof scoreSchema>
 
-// ---------- re-scoring after an edit ----------
-// The editor's first request posts the whole document; the answer carries a `basis`, a handle on the server's
-// copy of that document. Later requests send `{ basis, changes }` and get back only the planting lines that
-// changed; a basis the server no longer holds answers 409 and the editor posts the whole document again.
+// ---------- what the editor needs to score in the browser ----------
 
-const listChanges = <T extends z.ZodType>(item: T, max: number) => z.strictObject({
-  upsert: z.array(item).max(max).optional(),
-  remove: z.array(z.string().min(1).max(64)).max(max).optional(),
+/** POST /api/species/facts: the facts of these species names in a region (a region change, a name not seen yet). */
+export const speciesFactsBody = z.strictObject({
+  region: regionCode,
+  names: z.array(z.string().trim().min(1).max(200)).min(1).max(MAX_PLANTINGS),
 })
 
-export const yardChangesSchema = z.strictObject({
-  fields: yardDocumentFields.optional(),
-  areas: listChanges(yardArea, MAX_AREAS).optional(),
-  plantings: listChanges(yardPlanting, MAX_PLANTINGS).optional(),
+/** The facts and the goal the engine needs: facts keyed by `factsKey` (names not in the catalogue are absent). */
+export interface ScoreInputs {
+  region: string | null
+  goal: number
+  facts: Record<string, SpeciesFacts>
+}
+
+/** PUT /api/organisation/goal: the coordinator's goal share. */
+export const organisationGoalBody = z.strictObject({
+  goal: z.number({ error: 'Enter the goal as a number between 0.50 and 1.00' }).min(GOAL_MIN, 'The goal is at least 0.50 (50 %)').max(GOAL_MAX, 'The goal is at most 1.00 (100 %)'),
 })
-
-export const scoreBasis = z.string().regex(/^[A-Za-z0-9_-]{16,64}$/, 'Not a score basis')
-
-export const scoreChangesRequest = z.strictObject({ basis: scoreBasis, changes: yardChangesSchema })
-
-/** POST /api/score's body: a whole yard document, or changes to one the server scored before. */
-export const scoreRequest = z.custom<unknown>(() => true).transform((value, ctx) => {
-  const isChanges = typeof value === 'object' && value !== null && 'basis' in value
-  const result = isChanges ? scoreChangesRequest.safeParse(value) : yardDocument.safeParse(value)
-  if (!result.success) {
-    for (const issue of result.error.issues) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message, input: value })
-    return z.NEVER
-  }
-  return isChanges
-    ? { kind: 'changes' as const, ...(result.data as z.output<typeof scoreChangesRequest>) }
-    : { kind: 'document' as const, doc: result.data as YardDocument }
-})
-
-export type ScoreRequest = z.output<typeof scoreRequest>
-
-/** The answer to a whole document: the score and the basis for the next request's changes. */
-export const scoreWithBasisSchema = scoreSchema.extend({ basis: scoreBasis })
-
-/**
- * The answer to changes: the whole score except `plantings`, which lists only lines that are new or differ from
- * the answer for `since`; `removedPlantings` names lines to drop.
- */
-export const scoreUpdateSchema = scoreWithBasisSchema.extend({ since: scoreBasis, removedPlantings: z.array(z.string()) })
-
-export type ScoreWithBasis = z.infer<typeof scoreWithBasisSchema>
-export type ScoreUpdate = z.infer<typeof scoreUpdateSchema>

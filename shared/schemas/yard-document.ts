@@ -95,21 +95,6 @@ const yardDocumentBase = z.object({
   backdrop: yardBackdrop.nullable().optional(),
 })
 
-/**
- * The top-level fields other than the two long lists, each optional and without defaults: what a set of changes
- * to a document may replace (see shared/utils/yard-changes.ts); null clears an optional field.
- */
-export const yardDocumentFields = z.strictObject({
-  name: yardDocumentBase.shape.name.unwrap().nullable().optional(),
-  region: yardDocumentBase.shape.region.unwrap().nullable().optional(),
-  zone: yardDocumentBase.shape.zone,
-  frost: yardDocumentBase.shape.frost.unwrap().nullable().optional(),
-  units: yardDocumentBase.shape.units.unwrap().optional(),
-  boundary: yardDocumentBase.shape.boundary.unwrap().optional(),
-  lines: yardDocumentBase.shape.lines.unwrap().optional(),
-  backdrop: yardDocumentBase.shape.backdrop,
-})
-
 export type ElementIssue = { path: PropertyKey[]; message: string }
 
 /** What is wrong with one well-formed area or planting on its own: an outline that crosses itself, no position. */
@@ -158,7 +143,7 @@ const NOUNS: Record<string, string> = { areas: 'Area', plantings: 'Planting', li
 
 // Fast path for the two long lists: a plain loop accepting exactly what the zod element schemas accept and
 // building the same output (unknown keys dropped, names trimmed, area z defaulting to 0), or null to let zod
-// parse (and explain). The editor posts the whole document on every change; zod's checks cost ~3 µs a planting.
+// parse (and explain). Every save and POST /api/score sends the whole document; zod's checks cost ~3 µs a planting.
 const isNum = (v: unknown, min: number, max: number): v is number => typeof v === 'number' && Number.isFinite(v) && v >= min && v <= max
 const isInt = (v: unknown, min: number, max: number) => isNum(v, min, max) && Number.isSafeInteger(v)
 const isPos = (v: unknown, max: number) => typeof v === 'number' && Number.isFinite(v) && v > 0 && v <= max

@@ -1,42 +1,53 @@
-// Footprint geometry for the score: circles as polygons, clipping to the lot, cutting the ground layer by
+// Footprint geometry for the score: circles in the lot (exact), clipping outlines to the lot, cutting the ground layer by
 // what is drawn above it. Exact analytic answers first (a shape wholly inside or wholly apart); polygon-clipping
 // only where shapes really cross. Points are [x, y] in metres, y down.
 import polygonClipping from 'polygon-clipping'
 import { ringArea, pointInRing, segmentsIntersect, type Point, type Ring } from './polygon'
+import { clipConvex, triangulate } from './convex-pieces'
 
 export type Polygon = Ring[]
 export type MultiPolygon = Polygon[]
 export interface Box { minX: number; minY: number; maxX: number; maxY: number }
 
-/** Sides of a circle drawn as a polygon: 96 keeps the inscribed polygon's area error at 0.071 % (< 0.1 %). */
-export const CIRCLE_SEGMENTS = 96
-
-// the polygon's vertices sit a little outside the circle so that its area equals πr² exactly
-const CIRCLE_AREA_SCALE = Math.sqrt((2 * Math.PI / CIRCLE_SEGMENTS) / Math.sin(2 * Math.PI / CIRCLE_SEGMENTS))
-let unitCircle: Ring | null = null
-function unitCircleRing(): Ring {
-  if (!unitCircle) {
-    unitCircle = Array.from({ length: CIRCLE_SEGMENTS }, (_, i): Point => {
-      const a = (2 * Math.PI * i) / CIRCLE_SEGMENTS
-      return [Math.cos(a) * CIRCLE_AREA_SCALE, Math.sin(a) * CIRCLE_AREA_SCALE]
-    })
-  }
-  return unitCircle
+/** A circle as an n-sided polygon of the same area (for tests and drawings; the score measures circles exactly). */
+export function circleRing(cx: number, cy: number, r: number, sides = 96): Ring {
+  // the vertices sit a little outside the circle so that the polygon's area equals πr²
+  const scale = Math.sqrt((2 * Math.PI / sides) / Math.sin(2 * Math.PI / sides))
+  return Array.from({ length: sides }, (_, i): Point => {
+    const a = (2 * Math.PI * i) / sides
+    return [cx + Math.cos(a) * scale * r, cy + Math.sin(a) * scale * r]
+  })
 }
 
-const circleCache = new Map<string, Ring>()
-const CIRCLE_CACHE_LIMIT = 20_000
+// signed area of the disc of radius r about the origin inside the triangle (origin, a, b): the sector pieces
+// where the edge a→b runs outside the circle, the triangle piece where it runs inside
+function discInTriangle(ax: number, ay: number, bx: number, by: number, r: number): number {
+  const sector = (ux: number, uy: number, vx: number, vy: number) => (r * r / 2) * Math.atan2(ux * vy - uy * vx, ux * vx + uy * vy)
+  const dx = bx - ax
+  const dy = by - ay
+  const A = dx * dx + dy * dy
+  if (A === 0) return 0
+  const B = ax * dx + ay * dy
+  const C = ax * ax + ay * ay - r * r
+  const disc = B * B - A * C
+  if (disc <= 0) return sector(ax, ay, bx, by)
+  const s = Math.sqrt(disc)
+  const t1 = Math.max(0, (-B - s) / A)
+  const t2 = Math.min(1, (-B + s) / A)
+  if (t1 >= t2) return sector(ax, ay, bx, by)
+  const p1x = ax + t1 * dx, p1y = ay + t1 * dy, p2x = ax + t2 * dx, p2y = ay + t2 * dy
+  return sector(ax, ay, p1x, p1y) + (p1x * p2y - p1y * p2x) / 2 + sector(p2x, p2y, bx, by)
+}
 
-/** A circle as a 96-sided polygon of the same area (cached: the editor re-scores the same circles often). */
-export function circleRing(cx: number, cy: number, r: number): Ring {
-  const key = `${cx},${cy},${r}`
-  let ring = circleCache.get(key)
-  if (!ring) {
-    ring = unitCircleRing().map(([ux, uy]): Point => [cx + ux * r, cy + uy * r])
-    if (circleCache.size >= CIRCLE_CACHE_LIMIT) circleCache.clear()
-    circleCache.set(key, ring)
+/** Exact area of a disc inside a simple polygon: the signed sum over its edges of disc ∩ triangle(centre, edge). */
+export function circleRingArea(cx: number, cy: number, r: number, ring: Ring): number {
+  let sum = 0
+  for (let i = 0, n = ring.length; i < n; i++) {
+    const a = ring[i]!
+    const b = ring[(i + 1) % n]!
+    sum += discInTriangle(a[0] - cx, a[1] - cy, b[0] - cx, b[1] - cy, r)
   }
-  return ring
+  return Math.min(Math.PI * r * r, Math.abs(sum))
 }
 
 export function multiPolygonArea(mp: MultiPolygon): number {
@@ -104,7 +115,11 @@ export function distanceToRing(p: Point, ring: Ring): number {
 
 /** A shape prepared once for many containment tests: the lot, or a ground planting's outline. */
 /** `rect`: an axis-aligned rectangle, for which the box says everything. */
-export interface Shape { ring: Ring; box: Box; convex: boolean; rect: boolean; area: number; sign: number }
+export interface Shape {
+  ring: Ring; box: Box; convex: boolean; rect: boolean; area: number; sign: number
+  /** convex pieces, worked out on first use (see `convexPieces`) */
+  pieces?: Shape[] | null
+}
 
 function isBoxRing(ring: Ring, box: Box): boolean {
   if (ring.length !== 4) return false
@@ -235,7 +250,7 @@ export function circleAreaInLot(cx: number, cy: number, r: number, lot: Shape | 
   const full = Math.PI * r * r
   if (!lot || circleInside(cx, cy, r, lot)) return full
   if (circleApart(cx, cy, r, lot)) return 0
-  return multiPolygonArea(clip.intersection([circleRing(cx, cy, r)], [lot.ring]))
+  return circleRingArea(cx, cy, r, lot.ring)
 }
 
 /** The part of a ring inside the lot, as a multipolygon, and its area. */
@@ -328,18 +343,76 @@ function edgeInConvex(p: Point, q: Point, ex: number, ey: number, B: Shape): [nu
 export type Cutter = Shape
 export const cutterOf = shapeOf
 
+/** The shape as convex pieces with disjoint interiors (itself when convex); null when it cannot be cut. */
+export function convexPieces(s: Shape): Shape[] | null {
+  if (s.pieces === undefined) {
+    const triangles = s.convex ? null : triangulate(s.ring)
+    s.pieces = s.convex ? [s] : triangles ? triangles.map(shapeOf) : null
+  }
+  return s.pieces
+}
+
+/** Convex pieces of the shape's part inside the lot; null when either cannot be cut into convex pieces. */
+export function piecesInLot(s: Shape, lot: Shape | null): Shape[] | null {
+  const own = convexPieces(s)
+  if (!own || !lot || ringInside(s.ring, s.box, lot)) return own
+  if (ringsApart(s, lot)) return []
+  const lotPieces = convexPieces(lot)
+  if (!lotPieces) return null
+  const out: Shape[] = []
+  for (const p of own) {
+    for (const l of lotPieces) {
+      if (!boxesOverlap(p.box, l.box)) continue
+      const part = clipConvex(p.ring, l.ring)
+      if (part) out.push(shapeOf(part))
+    }
+  }
+  return out
+}
+
+/** Area of an outline inside the lot. */
+export function areaInLot(s: Shape, lot: Shape | null): number {
+  const pieces = piecesInLot(s, lot)
+  return pieces ? pieces.reduce((sum, p) => sum + p.area, 0) : ringInLot(s.ring, lot, s).area
+}
+
 /**
  * Visible area of a ground-layer shape: its part inside the lot, less everything drawn above it (`above`).
- * Cutters that overlap nothing else are subtracted exactly (a cutter inside another counts once, as the outer
- * one); only groups of cutters that really cross each other or the outline go to polygon-clipping.
+ * Every outline is cut into convex pieces, so each covered part is |P ∩ U| = |P| + |U| − |P ∪ U| for a convex
+ * piece P of the shape and the union U of the cutters' pieces near it, all unions of convex outlines (exact).
+ * Groups of cutters that overlap nothing else are handled apart; a cutter inside another counts once.
  */
 export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[], prepared?: Shape): { area: number; inLot: number } {
   const self = prepared ?? shapeOf(ring)
-  const inLot = ringInLot(ring, lot, self)
-  if (inLot.area === 0) return { area: 0, inLot: 0 }
+  const pieces = piecesInLot(self, lot)
+  if (!pieces) return visibleAreaByClipping(ring, lot, above, self)
+  let inLot = 0
+  for (const p of pieces) inLot += p.area
+  if (inLot === 0) return { area: 0, inLot: 0 }
   const near = above.filter((c) => boxesOverlap(c.box, self.box) && !ringsApart(c, self))
-  if (!near.length) return { area: inLot.area, inLot: inLot.area }
-  // group the cutters that overlap each other: union-find over pairs, swept in x so far-apart pairs are skipped
+  if (!near.length) return { area: inLot, inLot }
+  const whole = pieces.length === 1 && pieces[0] === self
+  let subtract = 0
+  for (const group of overlapGroups(near).values()) {
+    const kept = keptOf(group)
+    if (kept.length === 1 && whole && ringInside(kept[0]!.ring, kept[0]!.box, self)) { subtract += kept[0]!.area; continue }
+    const cut: Shape[] = []
+    for (const c of kept) {
+      const cp = convexPieces(c)
+      if (!cp) return visibleAreaByClipping(ring, lot, above, self)
+      for (const x of cp) cut.push(x)
+    }
+    for (const p of pieces) {
+      // only the cutter pieces that reach this piece can cover it
+      const reach = cut.filter((c) => boxesOverlap(c.box, p.box))
+      if (reach.length) subtract += p.area + convexUnionArea(reach) - convexUnionArea([p, ...reach])
+    }
+  }
+  return { area: Math.max(0, inLot - subtract), inLot }
+}
+
+// the cutters in groups that overlap each other: union-find over pairs, swept in x so far-apart pairs are skipped
+function overlapGroups(near: Cutter[]): Map<number, Cutter[]> {
   near.sort((a, b) => a.box.minX - b.box.minX)
   const parent = near.map((_, i) => i)
   const find = (i: number): number => (parent[i] === i ? i : (parent[i] = find(parent[i]!)))
@@ -356,20 +429,35 @@ export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[], prep
     if (g) g.push(c)
     else groups.set(r, [c])
   })
-  const hard: Ring[] = []
+  return groups
+}
+
+// a cutter inside another of its group adds nothing to the group's cover (a drift in its bed)
+const keptOf = (group: Cutter[]) => group.filter((c, i) => !group.some((o, j) => j !== i && o.convex && ringInside(c.ring, c.box, o) && !(j > i && ringInside(o.ring, o.box, c))))
+
+// the visible area through polygon-clipping: for outlines that cannot be cut into convex pieces
+function visibleAreaByClipping(ring: Ring, lot: Shape | null, above: Cutter[], prepared?: Shape): { area: number; inLot: number } {
+  const self = prepared ?? shapeOf(ring)
+  const inLot = ringInLot(ring, lot, self)
+  if (inLot.area === 0) return { area: 0, inLot: 0 }
+  const near = above.filter((c) => boxesOverlap(c.box, self.box) && !ringsApart(c, self))
+  if (!near.length) return { area: inLot.area, inLot: inLot.area }
+  const groups = overlapGroups(near)
+  const hard: Cutter[][] = []
   let subtract = 0
   for (const group of groups.values()) {
-    // a cutter inside another of its group adds nothing to the group's cover (a drift in its bed)
-    const kept = group.filter((c, i) => !group.some((o, j) => j !== i && o.convex && ringInside(c.ring, c.box, o) && !(j > i && ringInside(o.ring, o.box, c))))
+    const kept = keptOf(group)
     if (kept.length === 1 && inLot.whole && ringInside(kept[0]!.ring, kept[0]!.box, self)) subtract += kept[0]!.area
     // convex pieces on a convex shape: |S ∩ U| = |S| + |U| − |S ∪ U|, all unions of convex outlines
     else if (inLot.whole && self.convex && kept.every((c) => c.convex)) subtract += self.area + convexUnionArea(kept) - convexUnionArea([self, ...kept])
-    else hard.push(...kept.map((c) => c.ring))
+    else hard.push(kept)
   }
-  if (hard.length) {
-    const [first, ...rest] = hard.map((r) => [r] as Polygon)
-    const covered = clip.intersection(inLot.geom, clip.union(first!, ...rest))
-    subtract += multiPolygonArea(covered)
+  // groups share no interior, so each is clipped on its own: the clipper's cost grows faster than its input
+  for (const kept of hard) {
+    const [first, ...rest] = kept.map((c) => [c.ring] as Polygon)
+    const union = rest.length ? clip.union(first!, ...rest) : [first!]
+    const inside = inLot.whole && kept.every((c) => ringInside(c.ring, c.box, self))
+    subtract += multiPolygonArea(inside ? union : clip.intersection(inLot.geom, union))
   }
   return { area: Math.max(0, inLot.area - subtract), inLot: inLot.area }
 }

@@ -31,3 +31,6 @@ export const loginFailures = mysqlTable('login_failures', {
   address: varchar('address', { length: 64 }).notNull(),
   at: timestamp('at', { fsp: 3 }).notNull().defaultNow(),
 }, (t) => [index('login_failures_email_idx').on(t.email, t.at), index('login_failures_address_idx').on(t.address, t.at)])
+
+/** An account as stored (the type every service and access helper takes). */
+export type AccountRow = typeof users.$inferSelect

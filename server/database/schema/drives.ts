@@ -93,22 +93,16 @@ export const shareSnapshots = mysqlTable('share_snapshots', {
 ])
 
 /**
- * The last computed dashboard summary of a drive, shared by every instance. Every change the app makes to a
- * drive's pledges bumps `version`; a body computed for an older version (or over a minute ago, which covers a
- * pledged yard deleted with its pledge) is computed again.
+ * Each drive's version, shared by every instance: every change the app makes to a drive's pledges bumps it, and
+ * a dashboard view computed for an older version (or over a minute ago, which covers a pledged yard deleted with
+ * its pledge) is computed again.
  */
 export const driveSummaries = mysqlTable('drive_summaries', {
   driveId: ref('drive_id').primaryKey().references(() => drives.id, { onDelete: 'cascade' }),
   version: int('version', { unsigned: true }).notNull().default(1),
-  body: json('body').$type<Record<string, unknown>>(),
-  bodyVersion: int('body_version', { unsigned: true }),
-  computedAt: timestamp('computed_at', { fsp: 3 }),
 })
 
-/**
- * The dashboard's other views of a drive (progress over time, neighbourhoods), cached like the summary: a body
- * is reused while it was computed for the drive's current `version` (in drive_summaries) within the last minute.
- */
+/** The dashboard's views of a drive (summary, progress over time, neighbourhoods), each as last computed. */
 export const driveViewCache = mysqlTable('drive_view_cache', {
   driveId: ref('drive_id').notNull().references(() => drives.id, { onDelete: 'cascade' }),
   view: varchar('view', { length: 32 }).notNull(),

@@ -29,3 +29,6 @@ export const yardMembers = mysqlTable('yard_members', {
   role: mysqlEnum('role', YARD_MEMBER_ROLES).notNull(),
   ...timestamps,
 }, (t) => [uniqueIndex('yard_members_yard_user_unique').on(t.yardId, t.userId), index('yard_members_user_idx').on(t.userId)])
+
+/** A yard as stored. */
+export type YardRow = typeof yards.$inferSelect

@@ -11,4 +11,25 @@ export const rows: AccessRow[] = [
     request: (c) => ({ path: `/api/yards/${c.yardId}/score` }),
     expect: { anonymous: 401, owner: 200, otherHomeowner: 404, advisor: 404, coordinator: 404 },
   },
+  {
+    file: 'yards/[id]/facts.get.ts', method: 'GET',
+    request: (c) => ({ path: `/api/yards/${c.yardId}/facts` }),
+    expect: { anonymous: 401, owner: 200, otherHomeowner: 404, advisor: 404, coordinator: 404 },
+  },
+  {
+    file: 'species/facts.post.ts', method: 'POST',
+    request: () => ({ path: '/api/species/facts', body: { region: 'US-OH', names: ['Quercus alba'] } }),
+    expect: { anonymous: 401, owner: 200, otherHomeowner: 200, advisor: 200, coordinator: 200 },
+  },
+  {
+    file: 'organisation/goal.get.ts', method: 'GET',
+    request: () => ({ path: '/api/organisation/goal' }),
+    expect: { anonymous: 401, owner: 200, otherHomeowner: 200, advisor: 200, coordinator: 200 },
+  },
+  {
+    // the goal put back to its default, so other tests see no change
+    file: 'organisation/goal.put.ts', method: 'PUT',
+    request: () => ({ path: '/api/organisation/goal', body: { goal: 0.7 } }),
+    expect: { anonymous: 401, owner: 403, otherHomeowner: 403, advisor: 403, coordinator: 200 },
+  },
 ]

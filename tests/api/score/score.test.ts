@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest'
 import { Client, demo, newHomeowner } from '../../support/http'
-import { scoreSchema, scoreUpdateSchema, scoreWithBasisSchema } from '#shared/schemas/score'
-import { mergeScoreUpdate } from '#shared/utils/yard-changes'
+import { scoreSchema } from '#shared/schemas/score'
+import { scoreYard } from '#shared/utils/score'
 
 const rect = (x: number, y: number, w: number, h: number) => [[x, y], [x + w, y], [x + w, y + h], [x, y + h]]
 const lawnAndBed = {
@@ -21,7 +21,7 @@ describe('POST /api/score', () => {
     const { client } = await newHomeowner('score')
     const r = await client.post('/api/score', lawnAndBed)
     expect(r.status).toBe(200)
-    expect(scoreWithBasisSchema.parse(r.body)).toEqual(r.body)
+    expect(scoreSchema.parse(r.body)).toEqual(r.body)
     // the goal is the organisation's (default 0.70, Narango, Tallamy & Marra 2018, PNAS 115(45):11549–11554)
     expect(r.body.goal).toBe(0.7)
     const byId = Object.fromEntries(r.body.plantings.map((p: { id: string }) => [p.id, p]))
@@ -70,73 +70,50 @@ describe('POST /api/score', () => {
   })
 })
 
-describe('POST /api/score with changes to an earlier answer', () => {
-  const strip = ({ basis: _b, ...score }: Record<string, unknown>) => score
+describe('score inputs for the browser', () => {
+  it('gives the facts and goal with which the engine in the browser scores exactly as the server', async () => {
+    const owner = await newHomeowner('facts')
+    const { id } = (await owner.client.post('/api/yards', { name: 'Facts', region: 'US-OH', document: lawnAndBed })).body
+    const inputs = await owner.client.get(`/api/yards/${id}/facts`)
+    expect(inputs.status).toBe(200)
+    expect(inputs.body.region).toBe('US-OH')
+    // keyed by the lower-cased name; the unidentified planting names no species
+    expect(Object.keys(inputs.body.facts).sort()).toEqual(['berberis thunbergii', 'carex pensylvanica', 'poa pratensis', 'quercus alba'])
+    const server = (await owner.client.get(`/api/yards/${id}/score`)).body
+    const saved = (await owner.client.get(`/api/yards/${id}`)).body.document
+    expect(scoreYard(saved, new Map(Object.entries(inputs.body.facts)), inputs.body.goal, 'US-OH')).toEqual(server)
+    expect((await (await newHomeowner('facts-stranger')).client.get(`/api/yards/${id}/facts`)).status).toBe(404)
+  })
 
-  it('gives the score the whole changed document gets, sending back only the lines that changed', async () => {
-    const { client } = await newHomeowner('rescore')
-    const first = await client.post('/api/score', lawnAndBed)
-    expect(first.status).toBe(200)
-    const changes = {
-      plantings: {
-        upsert: [
-          { id: 'oak', species: 'Quercus alba', x: 3, y: 7, count: 1, spread: 4, height: 10 },
-          { id: 'asters', species: 'Symphyotrichum novae-angliae', z: 6, points: rect(6, 1, 2, 2), spacing: 0.45 },
-        ],
-        remove: ['barberry'],
-      },
-      fields: { name: 'Front yard' },
+  it('gives the facts of names in a region, leaving out names the catalogue lacks', async () => {
+    const client = await demo('homeowner')
+    const r = await client.post('/api/species/facts', { region: 'US-OH', names: ['Quercus alba', '  ECHINACEA PURPUREA ', 'Not a plant'] })
+    expect(r.status).toBe(200)
+    expect(Object.keys(r.body.facts).sort()).toEqual(['echinacea purpurea', 'quercus alba'])
+    expect(r.body.facts['quercus alba']).toMatchObject({ scientificName: 'Quercus alba', layer: 'tree', status: 'native' })
+    const bad = await client.post('/api/species/facts', { region: 'Ohio', names: [] })
+    expect(bad.status).toBe(400)
+    expect(Object.keys(bad.body.data.fields).sort()).toEqual(['names', 'region'])
+  })
+})
+
+describe('the organisation goal', () => {
+  it('is set by a coordinator between 0.50 and 1.00, and every score uses it at once', async () => {
+    const coordinator = await demo('coordinator')
+    const homeowner = await demo('homeowner')
+    expect((await homeowner.put('/api/organisation/goal', { goal: 0.8 })).status).toBe(403)
+    const low = await coordinator.put('/api/organisation/goal', { goal: 0.4 })
+    expect(low.status).toBe(400)
+    expect(low.body.data.fields.goal).toMatch(/at least 0.50/)
+    expect((await coordinator.put('/api/organisation/goal', { goal: 1.01 })).body.data.fields.goal).toMatch(/at most 1.00/)
+    expect((await coordinator.put('/api/organisation/goal', { goal: 'high' })).body.data.fields.goal).toBeTruthy()
+    try {
+      expect((await coordinator.put('/api/organisation/goal', { goal: 0.85 })).body).toEqual({ goal: 0.85 })
+      expect((await homeowner.get('/api/organisation/goal')).body).toEqual({ goal: 0.85 })
+      expect((await homeowner.post('/api/score', lawnAndBed)).body.goal).toBe(0.85)
+    } finally {
+      await coordinator.put('/api/organisation/goal', { goal: 0.7 })
     }
-    const update = await client.post('/api/score', { basis: first.body.basis, changes })
-    expect(update.status).toBe(200)
-    expect(scoreUpdateSchema.parse(update.body)).toEqual(update.body)
-    expect(update.body.since).toBe(first.body.basis)
-    expect(update.body.basis).not.toBe(first.body.basis)
-    expect(update.body.removedPlantings).toEqual(['barberry'])
-    // the asters are new and cover 4 m² of lawn, so the lawn's line changed; the oak moved but still stands wholly
-    // in the lot, so its figures (and the sedge's and the unidentified plant's) are as before
-    expect(update.body.plantings.map((p: { id: string }) => p.id).sort()).toEqual(['asters', 'lawn'])
-
-    // reference: the changed document posted whole
-    const changed = { ...lawnAndBed, name: 'Front yard', plantings: [...lawnAndBed.plantings.filter((p) => p.id !== 'barberry').map((p) => (p.id === 'oak' ? changes.plantings.upsert[0] : p)), changes.plantings.upsert[1]] }
-    const whole = await client.post('/api/score', changed)
-    expect(strip(mergeScoreUpdate(first.body, update.body, changed as never))).toEqual(strip(whole.body))
-    expect(update.body.shares).toEqual(whole.body.shares)
-    expect(update.body.moves).toEqual(whole.body.moves)
-
-    // and a chain of changes goes on from each answer's basis
-    const next = await client.post('/api/score', { basis: update.body.basis, changes: { plantings: { remove: ['asters'] } } })
-    expect(next.status).toBe(200)
-    expect(next.body.removedPlantings).toEqual(['asters'])
-    // with the asters gone the lawn is whole again, as in the first answer
-    const lawnLine = (score: { plantings: Array<{ id: string }> }) => score.plantings.find((p) => p.id === 'lawn')
-    expect(next.body.plantings).toEqual([lawnLine(first.body)])
-  })
-
-  it('answers 409 to a basis the server does not hold, or holds for someone else', async () => {
-    const mine = await newHomeowner('basis-owner')
-    const { basis } = (await mine.client.post('/api/score', lawnAndBed)).body
-    const other = await newHomeowner('basis-thief')
-    const stolen = await other.client.post('/api/score', { basis, changes: {} })
-    expect(stolen.status).toBe(409)
-    expect(stolen.body.data.fields.basis).toBeTruthy()
-    expect((await mine.client.post('/api/score', { basis: 'A'.repeat(24), changes: {} })).status).toBe(409)
-  })
-
-  it('refuses bad changes with a 400 naming the place in the request, and keeps the basis usable', async () => {
-    const { client } = await newHomeowner('bad-changes')
-    const { basis } = (await client.post('/api/score', lawnAndBed)).body
-    const badCount = await client.post('/api/score', { basis, changes: { plantings: { upsert: [{ id: 'oak', species: 'Quercus alba', x: 1, y: 1, count: 0 }] } } })
-    expect(badCount.status).toBe(400)
-    expect(Object.keys(badCount.body.data.fields)).toEqual(['changes.plantings.upsert.0.count'])
-    const missing = await client.post('/api/score', { basis, changes: { plantings: { remove: ['nothing-here'] } } })
-    expect(missing.status).toBe(400)
-    expect(Object.keys(missing.body.data.fields)).toEqual(['changes.plantings.remove.0'])
-    const crossing = await client.post('/api/score', { basis, changes: { areas: { upsert: [{ id: 'bed', kind: 'bed', points: [[0, 0], [2, 2], [2, 0], [0, 2]] }] } } })
-    expect(crossing.status).toBe(400)
-    expect(Object.keys(crossing.body.data.fields)).toEqual(['changes.areas.upsert.0.points'])
-    expect((await client.post('/api/score', { basis: 'short', changes: {} })).body.data.fields.basis).toBeTruthy()
-    expect((await client.post('/api/score', { basis, changes: {} })).status).toBe(200)
   })
 })
 
@@ -146,8 +123,7 @@ describe('GET /api/yards/[id]/score', () => {
     const { id } = (await owner.client.post('/api/yards', { name: 'Scored', region: 'US-OH', document: lawnAndBed })).body
     const saved = await owner.client.get(`/api/yards/${id}/score`)
     expect(saved.status).toBe(200)
-    const { basis: _basis, ...posted } = (await owner.client.post('/api/score', lawnAndBed)).body
-    expect(saved.body).toEqual(posted)
+    expect(saved.body).toEqual((await owner.client.post('/api/score', lawnAndBed)).body)
     expect((await (await newHomeowner('stranger')).client.get(`/api/yards/${id}/score`)).status).toBe(404)
   })
 

@@ -1,16 +1,18 @@
 // Moves to the goal, per share, worked out from the measured yard (never guessed): replace invasive plantings
 // first (largest first), then close what is left by converting lawn to a native drift (area and volume) or by
 // adding k native plants of a typical size. `applyMoves` carries them out on a document, so they can be checked.
-import type { Layer, SpeciesFacts } from '#shared/types/species'
-import type { Move, ScoreWarning, ShareKind } from '#shared/schemas/score'
-import type { YardDocument, YardPlanting } from '#shared/schemas/yard-document'
-import { clip, multiPolygonArea, roomiestPoint, visibleGeometry, ringInLot, type Cutter, type Shape, type MultiPolygon } from '#shared/utils/geometry'
-import type { Ring } from '#shared/utils/polygon'
-import { formatArea, type Units } from '#shared/utils/units'
-import { regionName } from '#shared/utils/regions'
-import { TYPICAL_SIZE, contribution, groundCutters, measureYard, round3, tallyYard, type MeasuredYard, type PlantingMeasure, type YardTally } from './scoring'
+import type { Layer, SpeciesFacts } from '../../types/species'
+import type { Move, ScoreWarning, ShareKind } from '../../schemas/score'
+import type { YardDocument, YardPlanting } from '../../schemas/yard-document'
+import { clip, multiPolygonArea, roomiestPoint, visibleGeometry, ringInLot, type Cutter, type Shape, type MultiPolygon } from '../geometry'
+import type { Ring } from '../polygon'
+import { formatArea, type Units } from '../units'
+import { regionName } from '../regions'
+import { TYPICAL_SIZE, groundCutters, measureYard, type MeasuredYard, type PlantingMeasure } from './measure'
+import { contribution, round3, tallyYard, type YardTally } from './tally'
+import { GOAL_TOLERANCE, meetsGoal } from './goal'
+import type { ScoreMemo } from './memo'
 
-const EPS = 1e-9
 const SHARES: ShareKind[] = ['count', 'area', 'volume']
 const LAYER_WORD: Record<Layer, [string, string]> = { tree: ['tree', 'trees'], shrub: ['shrub', 'shrubs'], ground: ['perennial or grass', 'perennials and grasses'] }
 
@@ -34,19 +36,18 @@ export function lawnOrder(plantings: PlantingMeasure[], skip: Set<number> = new 
     .sort((a, b) => round3(b.area) - round3(a.area) || a.index - b.index)
 }
 
-// the lot's roomiest point, once per lot shape (a re-score after an edit keeps the same shape for the same lot)
-const roomiestByLot = new WeakMap<Shape, ReturnType<typeof roomiestPoint>>()
-function roomiest(lot: Shape | null): ReturnType<typeof roomiestPoint> {
-  if (!lot) return roomiestPoint(lot)
-  let r = roomiestByLot.get(lot)
-  if (!r) roomiestByLot.set(lot, (r = roomiestPoint(lot)))
+// the lot's roomiest point; the editor's memo keeps it per lot shape (unchanged while the lot is)
+function roomiest(lot: Shape | null, memo?: ScoreMemo): ReturnType<typeof roomiestPoint> {
+  if (!lot || !memo) return roomiestPoint(lot)
+  let r = memo.roomiest.get(lot)
+  if (!r) memo.roomiest.set(lot, (r = roomiestPoint(lot)))
   return r
 }
 
 /** The layer of the plants an add-plants move proposes: small plants for the count; for cover and volume the largest that fits the lot. */
-export function addPlantsLayer(share: ShareKind, lot: Shape | null): Layer {
+export function addPlantsLayer(share: ShareKind, lot: Shape | null, memo?: ScoreMemo): Layer {
   if (share === 'count') return 'ground'
-  const room = roomiest(lot).clearance
+  const room = roomiest(lot, memo).clearance
   return (['tree', 'shrub', 'ground'] as Layer[]).find((l) => TYPICAL_SIZE[l].spread / 2 <= room) ?? 'ground'
 }
 
@@ -62,7 +63,7 @@ const ceilTenth = (x: number) => Math.ceil(x * 10 - 1e-9) / 10
 // metres first (the amount's unit), the yard's own units beside when it is drawn in feet
 const areaWords = (m2: number, units: Units) => `${formatArea(m2, 'm', m2 < 10 ? 1 : 0)}${units === 'ft' ? ` (${formatArea(m2, 'ft')})` : ''}`
 
-export function movesToGoal(measured: MeasuredYard, goal: number, tally: YardTally = tallyYard(measured.plantings)): { moves: Move[]; warnings: ScoreWarning[] } {
+export function movesToGoal(measured: MeasuredYard, goal: number, tally: YardTally = tallyYard(measured.plantings), memo?: ScoreMemo): { moves: Move[]; warnings: ScoreWarning[] } {
   const moves: Move[] = []
   const warnings: ScoreWarning[] = []
   const units: Units = measured.doc.units ?? 'm'
@@ -71,10 +72,10 @@ export function movesToGoal(measured: MeasuredYard, goal: number, tally: YardTal
     let native = tally.native[share]
     const total = tally.total[share]
     // an empty share has nothing to close; a share at the goal meets it
-    if (total === 0 || native >= goal * total - EPS * Math.max(1, total)) continue
+    if (total === 0 || meetsGoal(native / total, goal)) continue
     const replaced = new Set<number>()
     for (const group of invasiveOrder(tally.invasive, share)) {
-      if (native >= goal * total - EPS * total) break
+      if (meetsGoal(native / total, goal)) break
       for (const p of group) { native += contribution(p, share); replaced.add(p.index) }
       const { name, layer } = group[0]!
       const word = LAYER_WORD[layer]
@@ -88,10 +89,11 @@ export function movesToGoal(measured: MeasuredYard, goal: number, tally: YardTal
         moves.push({ share, kind: 'replace-invasive', amount: plants, unit: 'plants', text: `Replace the ${plants === 1 ? '' : `${plants} `}${where2}${spots} with ${plants === 1 ? `a native ${word[0]}` : `native ${word[1]}`} of about the same size` })
       }
     }
-    let gap = goal * total - native
-    if (gap <= EPS * total) continue
+    if (meetsGoal(native / total, goal)) continue
+    const gap = goal * total - native
 
     if (share !== 'count') {
+      // what is left to close, done when within meetsGoal's tolerance
       let need = gap
       let amount = 0
       for (const lawn of lawnOrder(tally.lawn, replaced)) {
@@ -99,9 +101,9 @@ export function movesToGoal(measured: MeasuredYard, goal: number, tally: YardTal
         const take = Math.min(lawn.area, need / rate)
         amount += take
         need -= take * rate
-        if (need <= EPS * total) break
+        if (need <= GOAL_TOLERANCE * total) break
       }
-      if (need <= EPS * total) {
+      if (need <= GOAL_TOLERANCE * total) {
         const a = ceilTenth(amount)
         moves.push({ share, kind: 'convert-lawn', amount: a, unit: 'm2', text: `Turn ${areaWords(a, units)} of lawn into a native drift` })
         continue
@@ -111,7 +113,7 @@ export function movesToGoal(measured: MeasuredYard, goal: number, tally: YardTal
       warnings.push({ id: 'goal', message: `A goal of 100 % by ${share} is met only by replacing every plant that is not native` })
       continue
     }
-    const layer = addPlantsLayer(share, measured.lot)
+    const layer = addPlantsLayer(share, measured.lot, memo)
     const size = TYPICAL_SIZE[layer]
     const perPlant = share === 'count' ? 1 : Math.PI * (size.spread / 2) ** 2 * (share === 'volume' ? size.height : 1)
     // k native plants raise native and total alike: native + k·a ≥ goal·(total + k·a)  ⇔  k ≥ gap / ((1 − goal)·a)

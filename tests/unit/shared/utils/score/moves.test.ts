@@ -1,9 +1,9 @@
 import { describe, it, expect } from 'vitest'
 import fc from 'fast-check'
-import { scoreYard } from '../../../../server/services/scoring'
-import { applyMoves } from '../../../../server/services/moves'
+import { scoreYard } from '#shared/utils/score'
+import { applyMoves } from '#shared/utils/score/moves'
 import type { ShareKind } from '#shared/schemas/score'
-import { facts, rect, yard, randomYards, NATIVE_FOR } from './score-fixtures'
+import { facts, rect, yard, randomYards, NATIVE_FOR } from './fixtures'
 
 const nativeFor = (layer: keyof typeof NATIVE_FOR) => NATIVE_FOR[layer]
 const movesFor = (s: ReturnType<typeof scoreYard>, share: ShareKind) => s.moves.filter((m) => m.share === share)

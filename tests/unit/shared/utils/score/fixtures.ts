@@ -103,3 +103,44 @@ export function applyEdit(doc: YardDocument, e: Edit, serial: number): YardDocum
   }
   return { ...doc, plantings, areas }
 }
+
+/** The same edit made in place, as the editor's store makes it (the planting and outline objects are kept). */
+export function mutateEdit(doc: YardDocument, e: Edit, serial: number): void {
+  const pi = doc.plantings.length ? e.at % doc.plantings.length : -1
+  const ai = doc.areas.length ? e.at % doc.areas.length : -1
+  const p = doc.plantings[pi]
+  const shiftInPlace = (pts: [number, number][], d: number) => { for (const pt of pts) { pt[0] += d; pt[1] -= d / 2 } }
+  switch (e.kind) {
+    case 'move-plant':
+      if (p?.points) shiftInPlace(p.points as [number, number][], e.d)
+      else if (p) { p.x = p.x! + e.d; p.y = p.y! - e.d }
+      break
+    case 'resize-plant':
+      if (p?.points) { if (p.spacing !== null) p.spacing = 0.2 + Math.abs(e.d) / 3 } else if (p) { p.count = 1 + (e.at % 7); p.spread = 0.2 + Math.abs(e.d) }
+      break
+    case 'remove-plant':
+      if (p) doc.plantings.splice(pi, 1)
+      break
+    case 'add-plant':
+      doc.plantings.push({ id: `new${serial}`, species: FIXTURE_FACTS[e.at % FIXTURE_FACTS.length]!.scientificName, x: 3 + e.d, y: 4 - e.d, count: 1 })
+      break
+    case 'add-drift':
+      doc.plantings.push({ id: `newd${serial}`, species: 'Carex pensylvanica', z: e.at % 9, points: rect(2 + e.d, 2, 3, 2), spacing: 0.3 })
+      break
+    case 'move-area':
+      if (ai >= 0) shiftInPlace(doc.areas[ai]!.points as [number, number][], e.d)
+      break
+    case 'remove-area':
+      if (ai >= 0) doc.areas.splice(ai, 1)
+      break
+    case 'species':
+      if (p) p.species = FIXTURE_FACTS[e.at % FIXTURE_FACTS.length]!.scientificName
+      break
+    case 'region':
+      doc.region = e.at % 2 ? 'US-OH' : 'CA-ON'
+      break
+    case 'boundary':
+      for (const pt of doc.boundary) pt[0] *= 1 + Math.abs(e.d) / 10
+      break
+  }
+}
