@@ -31,7 +31,7 @@ const POLICIES: Array<[RegExp, RoutePolicy]> = [
   [/^\/api\/yards\/\d+\/backdrop$/, { maxBytes: MAX_IMAGE_BYTES + MULTIPART_HEADROOM, accepts: ['multipart'] }],
   [/^\/api\/visits\/\d+\/photos$/, { maxBytes: MAX_IMAGE_BYTES + MULTIPART_HEADROOM, accepts: ['multipart'] }],
   // a CSV file as its own body (a spreadsheet may label it text/plain); never JSON, so never a JSON route's way in
-  [/^\/api\/catalogue\/import\/(preview|apply)$/, { maxBytes: IMPORT_MAX_BYTES, accepts: ['csv', 'text'] }],
+  [/^\/api\/(catalogue\/import\/(preview|apply)|admin\/sale\/lots\/import)$/, { maxBytes: IMPORT_MAX_BYTES, accepts: ['csv', 'text'] }],
   // a webhook from a hosted service: add its route here with crossSite: true (and verify its signature in the handler)
   // one-click unsubscribe (RFC 8058) is posted by the reader's mail service; the token in the link is the credential
   [/^\/seed-reminders\/unsubscribe$/, { maxBytes: 1024, accepts: ['form'], crossSite: true }],

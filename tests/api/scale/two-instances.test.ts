@@ -4,6 +4,7 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest'
 import { existsSync, readdirSync, rmSync } from 'node:fs'
 import { join } from 'node:path'
+import { createHash } from 'node:crypto'
 import { tmpdir } from 'node:os'
 import mysql from 'mysql2/promise'
 import { startS3Fake, startAppInstance, startProxy } from '../../../scripts/lib/cluster.mjs'
@@ -184,8 +185,10 @@ describe('two instances behind a round-robin proxy', () => {
     expect((await new Client(proxy.url).request('POST', '/api/auth/login', wrong, { 'x-forwarded-for': '198.51.100.7' })).status).toBe(401)
     // behind a proxy that appends instead (nginx's $proxy_add_x_forwarded_for), the last entry is the proxy's own
     expect((await new Client(apps[0]!.url).request('POST', '/api/auth/login', wrong, { 'x-forwarded-for': '198.51.100.7, 192.0.2.44' })).status).toBe(401)
-    const failures = await rows<{ address: string }>('SELECT address FROM login_failures WHERE email = ? ORDER BY id', [email])
-    expect(failures.map((f) => f.address)).toEqual(['127.0.0.1', '192.0.2.44'])
+    // the throttle counts per (e-mail, address) under a hashed key: one attempt each from the two real addresses
+    const pairKey = (address: string) => createHash('sha256').update(['pair', email, address].join('\u0000')).digest('hex')
+    const counted = await rows<{ keyHash: string; attempts: number }>('SELECT key_hash AS keyHash, attempts FROM login_attempts WHERE key_hash IN (?, ?, ?)', [pairKey('127.0.0.1'), pairKey('192.0.2.44'), pairKey('198.51.100.7')])
+    expect(Object.fromEntries(counted.map((r) => [r.keyHash, Number(r.attempts)]))).toEqual({ [pairKey('127.0.0.1')]: 1, [pairKey('192.0.2.44')]: 1 })
   })
 
   it('an instance stopped in the middle of a bulk mail finishes what it claimed, and the proxy keeps answering', async () => {
