@@ -249,7 +249,7 @@ export function factsOf(s: CachedSpecies, status: RegionStatus): SpeciesFacts {
   const d = s.data
   return {
     scientificName: d.scientificName, commonName: d.commonName, layer: d.layer, status,
-    spread: d.spread, height: d.height, spacing: d.spacing, lawn: d.lawn,
+    spread: d.spread, height: d.height, spacing: d.spacing, lawn: d.lawn, growthRate: d.growthRate ?? null,
     estimated: FACT_ESTIMATES.filter((f) => d.estimated.includes(f)), toxic: d.toxic,
   }
 }

@@ -2,14 +2,15 @@
 // posted yards with it (server/services/scoring.ts loads the facts and the goal); the editor runs the same
 // code in the browser on every edit (app/composables/useYardScore.ts), with a memo so that only what changed
 // is measured again.
-import type { YardDocument } from '../../schemas/yard-document'
+import { phaseOf, type YardDocument } from '../../schemas/yard-document'
 import type { SpeciesFacts } from '../../types/species'
 import type { Score, ScoredPlanting, Shares, ShareKind, Totals } from '../../schemas/score'
 import { round3, STATUSES, tallyYard } from './tally'
 import { measureYard, type MeasuredYard, type PlantingMeasure } from './measure'
 import { movesToGoal } from './moves'
-import type { ScoreMemo } from './memo'
+import { createScoreMemo, type ScoreMemo } from './memo'
 
+export { YEARS_TO_MATURITY, START_SIZE, GROWTH_STEPS, DEFAULT_RATE, defaultStart, grownSize } from './growth'
 export { createScoreMemo, type ScoreMemo } from './memo'
 export { DEFAULT_GOAL, GOAL_MAX, GOAL_MIN, GOAL_TOLERANCE, meetsGoal } from './goal'
 export { round3, contribution, tallyYard, type YardTally } from './tally'
@@ -26,18 +27,42 @@ export function sharesOf(native: Totals, total: Totals): Shares {
 
 const lineOf = (p: PlantingMeasure): ScoredPlanting => ({ id: p.id, status: p.status, layer: p.layer, count: p.count, area: round3(p.area), volume: round3(p.volume), cultivar: p.cultivar })
 
-/** The score of a measured yard against `goal`. */
-export function scoreMeasured(measured: MeasuredYard, goal: number, memo?: ScoreMemo): Score {
+/** The yard as it is now (there now + to remove) or with the plan (there now + to plant). */
+export function phaseView(doc: YardDocument, view: 'now' | 'planned'): YardDocument {
+  const skip = view === 'now' ? 'planned' : 'removing'
+  return { ...doc, areas: doc.areas.filter((a) => phaseOf(a) !== skip), plantings: doc.plantings.filter((p) => phaseOf(p) !== skip) }
+}
+
+/** Whether anything in the yard is to plant or to remove (else now and the plan are the same yard). */
+export const hasPlan = (doc: YardDocument) => doc.areas.some((a) => phaseOf(a) !== 'existing') || doc.plantings.some((p) => phaseOf(p) !== 'existing')
+
+/** The shares of the yard as it is now (there now + to remove): what a pledge is judged on. */
+export function sharesNow(doc: YardDocument, facts: Map<string, SpeciesFacts>, region?: string | null, memo?: ScoreMemo): { shares: Shares; measured: MeasuredYard } {
+  const measured = measureYard(phaseView(doc, 'now'), facts, region, memo)
+  const tally = tallyYard(measured.plantings)
+  return { shares: sharesOf(tally.native, tally.total), measured }
+}
+
+/** The score of a measured yard against `goal` (the plan's; `now` when the yard has a plan, else the same). */
+export function scoreMeasured(measured: MeasuredYard, goal: number, memo?: ScoreMemo, nowMeasured?: MeasuredYard, years: number | null = null): Score {
   const tally = tallyYard(measured.plantings)
   const byStatus = {} as Score['byStatus']
   for (const s of STATUSES) { const t = tally.byStatus[s]; byStatus[s] = { count: t.count, area: round3(t.area), volume: round3(t.volume) } }
   const { moves, warnings: moveWarnings } = movesToGoal(measured, goal, tally, memo)
+  const planned = sharesOf(tally.native, tally.total)
+  const nowTally = nowMeasured ? tallyYard(nowMeasured.plantings) : null
+  const lines = measured.plantings.map(lineOf)
+  // plantings to remove are not in the plan: their lines come from the yard as it is now
+  if (nowMeasured) for (const p of nowMeasured.plantings) if (phaseOf(nowMeasured.doc.plantings[p.index]!) === 'removing') lines.push(lineOf(p))
   return {
     goal,
-    shares: sharesOf(tally.native, tally.total),
+    shares: planned,
+    now: nowTally ? sharesOf(nowTally.native, nowTally.total) : planned,
+    planned,
+    years,
     byStatus,
     straightSpecies: sharesOf(tally.straight, tally.total),
-    plantings: measured.plantings.map(lineOf),
+    plantings: lines,
     moves,
     warnings: moveWarnings.length ? [...measured.warnings, ...moveWarnings] : measured.warnings,
   }
@@ -47,6 +72,10 @@ export function scoreMeasured(measured: MeasuredYard, goal: number, memo?: Score
  * The score of a yard document: species facts keyed by `factsKey`, the goal share, the region (default: the
  * document's). The memo, when given, carries what the last call worked out (the editor's; the server passes none).
  */
-export function scoreYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, goal: number, region?: string | null, memo?: ScoreMemo): Score {
-  return scoreMeasured(measureYard(doc, facts, region, memo), goal, memo)
+export function scoreYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, goal: number, region?: string | null, memo?: ScoreMemo, options: { years?: number | null } = {}): Score {
+  const years = options.years ?? null
+  if (!hasPlan(doc)) return scoreMeasured(measureYard(doc, facts, region, memo, years), goal, memo, undefined, years)
+  const planned = measureYard(phaseView(doc, 'planned'), facts, region, memo, years)
+  const now = measureYard(phaseView(doc, 'now'), facts, region, memo && (memo.now ??= createScoreMemo()))
+  return scoreMeasured(planned, goal, memo, now, years)
 }
