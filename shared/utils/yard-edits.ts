@@ -1,7 +1,7 @@
 // The yard editor's pure document edits and geometry: snapping, ids, finding, moving, copying, deleting and
 // layering elements, hit-testing and bounds. The editor store (app/stores/editor.ts) applies them through its
 // one undoable change; tests and other features can call them on any document.
-import { isAreaPlanting, type YardArea, type YardDocument, type YardLine, type YardPlanting } from '../schemas/yard-document'
+import { isAreaPlanting, phaseOf, PHASES, type Phase, type YardArea, type YardDocument, type YardLine, type YardPlanting } from '../schemas/yard-document'
 import { METRES_PER_FOOT, type Units } from './units'
 import { pointInRing, ringArea, type Point } from './polygon'
 import { boxOf, distanceToSegment, type Box } from './geometry'
@@ -31,6 +31,23 @@ export function snapValue(v: number, step: number): number {
 export function snapPoint(p: Point, step: number): Point {
   return [snapValue(p[0], step), snapValue(p[1], step)]
 }
+
+/** Sets the phase of areas and plantings (lines and the lot have none); "there now" is stored as no phase. */
+export function setPhase(doc: YardDocument, ids: Iterable<string>, phase: Phase): boolean {
+  const want = new Set(ids)
+  let changed = false
+  for (const el of [...doc.areas, ...doc.plantings]) {
+    if (!want.has(el.id) || phaseOf(el) === phase) continue
+    if (phase === 'existing') delete el.phase
+    else el.phase = phase
+    delete el.doneOn
+    changed = true
+  }
+  return changed
+}
+
+/** The phase after `phase` in the order there now → to plant → to remove → there now (one key steps through). */
+export const nextPhase = (phase: Phase): Phase => PHASES[(PHASES.indexOf(phase) + 1) % PHASES.length]!
 
 /** Plants in a drift at its on-centre spacing (triangular layout; `plantsNeeded`, as the score counts them). */
 export function driftPlantCount(points: Point[], spacing: number | null | undefined): number | null {

@@ -8,10 +8,13 @@ import type { Score, ScoredPlanting, Shares, ShareKind, Totals } from '../../sch
 import { round3, STATUSES, tallyYard } from './tally'
 import { measureYard, type MeasuredYard, type PlantingMeasure } from './measure'
 import { movesToGoal } from './moves'
+import { hasPlan, phaseView } from './phases'
 import { createScoreMemo, type ScoreMemo } from './memo'
 
 export { YEARS_TO_MATURITY, START_SIZE, GROWTH_STEPS, DEFAULT_RATE, defaultStart, grownSize } from './growth'
 export { createScoreMemo, type ScoreMemo } from './memo'
+export { movesAsPlanItems } from './plan-items'
+export { phaseView, hasPlan } from './phases'
 export { DEFAULT_GOAL, GOAL_MAX, GOAL_MIN, GOAL_TOLERANCE, meetsGoal } from './goal'
 export { round3, contribution, tallyYard, type YardTally } from './tally'
 export { factsKey, speciesKeys, measureYard, TYPICAL_SIZE, type MeasuredYard, type PlantingMeasure } from './measure'
@@ -27,20 +30,32 @@ export function sharesOf(native: Totals, total: Totals): Shares {
 
 const lineOf = (p: PlantingMeasure): ScoredPlanting => ({ id: p.id, status: p.status, layer: p.layer, count: p.count, area: round3(p.area), volume: round3(p.volume), cultivar: p.cultivar })
 
-/** The yard as it is now (there now + to remove) or with the plan (there now + to plant). */
-export function phaseView(doc: YardDocument, view: 'now' | 'planned'): YardDocument {
-  const skip = view === 'now' ? 'planned' : 'removing'
-  return { ...doc, areas: doc.areas.filter((a) => phaseOf(a) !== skip), plantings: doc.plantings.filter((p) => phaseOf(p) !== skip) }
-}
-
-/** Whether anything in the yard is to plant or to remove (else now and the plan are the same yard). */
-export const hasPlan = (doc: YardDocument) => doc.areas.some((a) => phaseOf(a) !== 'existing') || doc.plantings.some((p) => phaseOf(p) !== 'existing')
 
 /** The shares of the yard as it is now (there now + to remove): what a pledge is judged on. */
 export function sharesNow(doc: YardDocument, facts: Map<string, SpeciesFacts>, region?: string | null, memo?: ScoreMemo): { shares: Shares; measured: MeasuredYard } {
   const measured = measureYard(phaseView(doc, 'now'), facts, region, memo)
   const tally = tallyYard(measured.plantings)
   return { shares: sharesOf(tally.native, tally.total), measured }
+}
+
+/**
+ * Plants to raise per species (key: the trimmed lower-cased name): the counts of plantings still to plant, and
+ * for drifts to plant the plants their visible, lot-clipped area needs (the area the score counts).
+ */
+export function plantsToPlant(doc: YardDocument, facts: Map<string, SpeciesFacts>, region?: string | null): Map<string, { name: string; plants: number; cultivars: boolean }> {
+  const out = new Map<string, { name: string; plants: number; cultivars: boolean }>()
+  const planned = phaseView(doc, 'planned')
+  const measured = measureYard(planned, facts, region)
+  for (const m of measured.plantings) {
+    const p = planned.plantings[m.index]!
+    if (phaseOf(p) !== 'planned' || !p.species) continue
+    const key = p.species.trim().toLowerCase().replace(/\s+/g, ' ')
+    const entry = out.get(key) ?? { name: p.species.trim(), plants: 0, cultivars: false }
+    entry.plants += m.count ?? 0
+    if (p.cultivar) entry.cultivars = true
+    out.set(key, entry)
+  }
+  return out
 }
 
 /** The score of a measured yard against `goal` (the plan's; `now` when the yard has a plan, else the same). */

@@ -126,3 +126,24 @@ describe('the yard format', () => {
     expect(d.plantings[0]).toMatchObject({ phase: 'removing', start: 'plug', startSpread: 0.1, doneOn: '2026-05-01' })
   })
 })
+
+describe('moves as plan items', () => {
+  it('marks replaced plantings to remove with a native successor to plant, and the plan then meets the goal', async () => {
+    const { movesAsPlanItems } = await import('#shared/utils/score')
+    const { NATIVE_FOR } = await import('./fixtures')
+    const doc = yard({ plantings: [
+      { id: 'oak', species: 'Quercus alba', x: 3, y: 3, count: 1, spread: 2, height: 5 },
+      { id: 'barberry', species: 'Berberis thunbergii', x: 7, y: 7, count: 4, spread: 1, height: 1 },
+    ] })
+    const score = scoreYard(doc, facts(), 0.7)
+    const moves = score.moves.filter((m) => m.share === 'count')
+    expect(moves[0]).toMatchObject({ kind: 'replace-invasive' })
+    const planned = movesAsPlanItems(doc, facts(), moves, (l) => NATIVE_FOR[l])
+    expect(planned.plantings.find((p) => p.id === 'barberry')).toMatchObject({ species: 'Berberis thunbergii', phase: 'removing' })
+    expect(planned.plantings.find((p) => p.id === 'barberry-plan')).toMatchObject({ species: 'Cornus sericea', phase: 'planned', x: 7, y: 7, count: 4 })
+    const after = scoreYard(planned, facts(), 0.7)
+    // now: 1 native of 5 plants; with the plan: 5 of 5 (hand-worked)
+    expect(after.now.count.share).toBeCloseTo(0.2, 9)
+    expect(after.planned.count.share).toBe(1)
+  })
+})
