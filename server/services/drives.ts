@@ -224,7 +224,7 @@ export async function certificate(yard: YardRow) {
   const view = pledgeView(row.pledge, row.drive)
   return {
     yardName: yard.name, household: owner?.name ?? '', drive: driveView(row.drive), organisation: org?.name ?? '',
-    share: view.share, shares: view.shares, verifiedAt: row.pledge.verifiedAt, verifiedBy: (verifier as { name: string } | undefined)?.name ?? null,
+    share: view.share, shares: view.shares, planned: view.planned[row.drive.certifies], verifiedAt: row.pledge.verifiedAt, verifiedBy: (verifier as { name: string } | undefined)?.name ?? null,
   }
 }
 

@@ -2,31 +2,20 @@
 // The save, the yard's share history row and the pledge's shares are one transaction; the yard row is locked.
 import { and, asc, eq, sql } from 'drizzle-orm'
 import { yards, yardShareHistory, type YardRow } from '../database/schema'
-import { phaseOf, type YardDocument } from '#shared/schemas/yard-document'
+import type { YardDocument } from '#shared/schemas/yard-document'
+import { markWorkDone, WorkError } from '#shared/utils/yard-edits'
 import type { MarkWorkBody } from '#shared/schemas/yard'
 import { recordPledgedShares, yardShares } from './drives'
 
 /** The document with the work done; a 400 names the id that cannot take it. */
 export function documentAfterWork(doc: YardDocument, body: Pick<MarkWorkBody, 'action' | 'ids' | 'date'>): YardDocument {
-  const next: YardDocument = { ...doc, areas: doc.areas.map((a) => ({ ...a })), plantings: doc.plantings.map((p) => ({ ...p })) }
-  const bad = (i: number, message: string) => createError({ status: 400, message, data: { fields: { [`ids.${i}`]: message } } })
-  const drop = new Set<string>()
-  body.ids.forEach((id, i) => {
-    const el = next.plantings.find((p) => p.id === id) ?? next.areas.find((a) => a.id === id)
-    if (!el) throw bad(i, `There is no planting or area "${id}" in the plan`)
-    const phase = phaseOf(el)
-    if (body.action === 'planted') {
-      if (phase === 'removing') throw bad(i, `"${id}" is to remove: it cannot be marked planted`)
-      if (phase === 'existing') throw bad(i, `"${id}" is there already: only something to plant can be marked planted`)
-      delete el.phase
-      el.doneOn = body.date
-    } else {
-      if (phase !== 'removing') throw bad(i, `"${id}" is not marked to remove: mark it to remove first`)
-      drop.add(id)
-    }
-  })
-  next.plantings = next.plantings.filter((p) => !drop.has(p.id))
-  next.areas = next.areas.filter((a) => !drop.has(a.id))
+  const next: YardDocument = { ...doc, areas: doc.areas.map((a) => ({ ...a })), plantings: doc.plantings.map((p) => ({ ...p })), lines: [...doc.lines] }
+  try {
+    markWorkDone(next, body)
+  } catch (e) {
+    if (e instanceof WorkError) throw createError({ status: 400, message: e.message, data: { fields: { [`ids.${e.index}`]: e.message } } })
+    throw e
+  }
   return next
 }
 

@@ -49,6 +49,29 @@ export function setPhase(doc: YardDocument, ids: Iterable<string>, phase: Phase)
 /** The phase after `phase` in the order there now → to plant → to remove → there now (one key steps through). */
 export const nextPhase = (phase: Phase): Phase => PHASES[(PHASES.indexOf(phase) + 1) % PHASES.length]!
 
+/** Why work cannot be marked done on one of the ids (its index in the list, for the field name). */
+export class WorkError extends Error {
+  constructor(readonly index: number, message: string) { super(message) }
+}
+
+/**
+ * Work marked done, in place: planted turns what is to plant into what is there now (with the date), removed
+ * drops what was to remove. Throws WorkError naming the first id that cannot take it (then nothing is changed).
+ */
+export function markWorkDone(doc: YardDocument, work: { action: 'planted' | 'removed'; ids: string[]; date: string }): void {
+  const els = work.ids.map((id, i) => {
+    const el = doc.plantings.find((p) => p.id === id) ?? doc.areas.find((a) => a.id === id)
+    if (!el) throw new WorkError(i, `There is no planting or area "${id}" in the plan`)
+    const phase = phaseOf(el)
+    if (work.action === 'planted' && phase === 'removing') throw new WorkError(i, `"${id}" is to remove: it cannot be marked planted`)
+    if (work.action === 'planted' && phase === 'existing') throw new WorkError(i, `"${id}" is there already: only something to plant can be marked planted`)
+    if (work.action === 'removed' && phase !== 'removing') throw new WorkError(i, `"${id}" is not marked to remove: mark it to remove first`)
+    return el
+  })
+  if (work.action === 'planted') for (const el of els) { delete el.phase; el.doneOn = work.date }
+  else deleteElements(doc, work.ids)
+}
+
 /** Plants in a drift at its on-centre spacing (triangular layout; `plantsNeeded`, as the score counts them). */
 export function driftPlantCount(points: Point[], spacing: number | null | undefined): number | null {
   if (!spacing) return null
