@@ -108,6 +108,7 @@ export async function loadCatalogueBase(tx: Tx, file: CatalogueFile) {
  */
 export const DEMO_REGIONAL_LIST: OverrideRow[] = [
   { scientificName: 'Berberis thunbergii', region: 'US-OH', field: 'status', value: 'invasive', source: 'coordinator (demo regional list)' },
+  { scientificName: 'Lonicera maackii', region: 'US-OH', field: 'status', value: 'invasive', source: 'coordinator (demo regional list)' },
 ]
 
 /** Start-up: load this build's catalogue once across instances (and the demo list in demo mode), then warm this instance's copy. */
