@@ -1,14 +1,15 @@
 // Our own palette for the plan: status colours for plantings, materials for areas. Invasive plantings also get
 // a hatch and a heavy dashed outline, so they stand out without colour.
 import type { PlantingStatusName } from '~/stores/editor'
+import { statusLabel } from '#shared/utils/species-status'
 
 export interface StatusStyle { fill: string; stroke: string; label: string; dash: number[]; hatch: boolean; strokeWidth: number }
 
 export const STATUS_STYLES: Record<PlantingStatusName, StatusStyle> = {
-  native: { fill: '#4f9a62', stroke: '#1f5a33', label: 'Native', dash: [], hatch: false, strokeWidth: 1.5 },
-  introduced: { fill: '#e0a528', stroke: '#8a5d00', label: 'Introduced', dash: [], hatch: false, strokeWidth: 1.5 },
-  invasive: { fill: '#c2452d', stroke: '#4a1208', label: 'Invasive', dash: [6, 3], hatch: true, strokeWidth: 3 },
-  nativeAndIntroduced: { fill: '#7d8fc4', stroke: '#2f3f73', label: 'Native and introduced', dash: [2, 2], hatch: false, strokeWidth: 1.5 },
+  native: { fill: '#4f9a62', stroke: '#1f5a33', label: statusLabel('native'), dash: [], hatch: false, strokeWidth: 1.5 },
+  introduced: { fill: '#e0a528', stroke: '#8a5d00', label: statusLabel('introduced'), dash: [], hatch: false, strokeWidth: 1.5 },
+  invasive: { fill: '#c2452d', stroke: '#4a1208', label: statusLabel('invasive'), dash: [6, 3], hatch: true, strokeWidth: 3 },
+  nativeAndIntroduced: { fill: '#7d8fc4', stroke: '#2f3f73', label: statusLabel('nativeAndIntroduced'), dash: [2, 2], hatch: false, strokeWidth: 1.5 },
   unknown: { fill: '#a39c8c', stroke: '#4f4a3e', label: 'Unidentified', dash: [4, 4], hatch: false, strokeWidth: 1.5 },
 }
 

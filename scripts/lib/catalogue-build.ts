@@ -6,10 +6,12 @@ import { gunzipSync } from 'node:zlib'
 import { join } from 'node:path'
 import Papa from 'papaparse'
 import {
-  bareName, deriveFacts, parseNativeStatus, parseNoxiousStates, regionCodeForStateName, regionStatus, nameKey,
+  bareName, deriveFacts, parseNativeStatus, parseNoxiousStates, regionCodeForStateName, regionStatus,
   USDA, type AreaStatus, type CatalogueEntry, type CharacteristicsRow,
 } from '../../shared/utils/catalogue-rules'
 import { REGIONS } from '../../shared/utils/regions'
+import { withRangeHardiness } from '../../shared/utils/region-zones'
+import { nameKey } from '../../shared/utils/species-name'
 
 export const CATALOGUE_FORMAT = 'wildward.catalogue/1'
 const NON_VASCULAR = new Set(['Lichen', 'Moss', 'Liverwort', 'Hornwort', 'Green Algae', 'Red Algae', 'Brown Algae'])
@@ -91,7 +93,7 @@ export function buildCatalogueEntries(dataDir: string): BuildResult {
     }
     if (!areaStatus && regionsSeen) fallbackStatus++
     const sources = { ...facts.sources, status: areaStatus ? USDA : `${USDA} (distribution file's species-level status: no native-status row)` }
-    entries.push({
+    entries.push(withRangeHardiness({
       scientificName: name,
       usdaName: (p.scientific_name ?? '').replace(/\s+/g, ' ').trim() || null,
       commonName: p.common_name?.trim() || null,
@@ -104,7 +106,7 @@ export function buildCatalogueEntries(dataDir: string): BuildResult {
       sources,
       noxiousIn,
       regions,
-    })
+    }))
   }
   entries.sort((a, b) => a.scientificName.localeCompare(b.scientificName))
   return { entries, fallbackStatus }

@@ -1,5 +1,5 @@
-// Native species that fit a spot (region, zone, sun, soil, moisture, layer, size), ranked with reasons; a yard
-// id adds its bloom and layer gaps (and needs view access to that yard).
+// Native species that fit a spot (region, zone, sun, soil, moisture, layer, size), ranked with reasons, in two
+// groups: a known fit, and site needs not recorded; a yard id adds its bloom and layer gaps (needs view access).
 import { fitsQuery } from '#shared/schemas/species'
 import { findFits, yardContext } from '../services/catalogue'
 
@@ -15,6 +15,6 @@ export default defineEventHandler(async (event) => {
     const names = row.document.plantings.map((p) => p.species).filter((s): s is string => !!s)
     yard = await yardContext(names, region)
   }
-  const items = await findFits({ region: region!, zone, sun: q.sun, soil: q.soil, moisture: q.moisture, layer: q.layer, maxSpread: q.maxSpread }, yard, q.limit)
-  return { items, region, zone: zone ?? null }
+  const fits = await findFits({ region: region!, zone, sun: q.sun, soil: q.soil, moisture: q.moisture, layer: q.layer, maxSpread: q.maxSpread }, yard, q.limit, q.page)
+  return { ...fits, page: q.page ?? 1, region, zone: zone ?? null }
 })

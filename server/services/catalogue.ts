@@ -3,27 +3,27 @@
 // the score engine and the seed plan, the species table, good fits and swaps, and CSV import/export.
 import { gunzipSync } from 'node:zlib'
 import type { H3Event } from 'h3'
-import { and, asc, desc, eq, like, or, sql, type SQL } from 'drizzle-orm'
+import { eq, sql } from 'drizzle-orm'
 import { format as formatSql } from 'mysql2'
 import { appMeta, catalogueOverrides, catalogueRegions, catalogueSpecies, type CatalogueSpeciesData } from '../database/schema'
 import type { Layer, RegionStatus, SpeciesDetails, SpeciesFacts } from '#shared/types/species'
 import {
-  COORDINATOR, USDA, nameKey, speciesOf, zoneIndex, refreshEstimates, type CatalogueEntry,
+  COORDINATOR, USDA, speciesOf, zoneIndex, refreshEstimates, type CatalogueEntry,
 } from '#shared/utils/catalogue-rules'
 import { readCatalogueCsv, catalogueToCsv } from '#shared/utils/catalogue-csv'
 import {
-  CSV_COLUMNS, IMPORT_MAX_BYTES, SPECIES_PAGE_SIZE, type ExportQuery, type ImportChange, type ImportError, type ImportPreview,
+  CSV_COLUMNS, IMPORT_MAX_BYTES, type ExportQuery, type ImportChange, type ImportError, type ImportPreview,
   type OverrideField, type SpeciesListQuery,
 } from '#shared/schemas/species'
 import { REGIONS } from '#shared/utils/regions'
-import {
-  Lru, PRINTABLE_ASCII, buildRegionFits, buildSearchIndex, buildTableIndex, collatedChars, isPlainAscii, likeMatches, likeTableFoldsAsciiCase,
-  rankFits, rankSwaps, searchPage, tablePage, type LikeTable,
-  type CachedSpecies, type FitConditions, type FitItem, type RegionFits, type SearchIndex, type TableIndex, type YardContext,
-} from './catalogue-index'
+import { buildSearchIndex, buildTableIndex, namedMask, searchPage, tablePage, type CachedSpecies, type SearchIndex, type TableIndex } from './catalogue-index'
+import { buildRegionFits, rankFits, rankSwaps, type FitConditions, type FitItem, type FitsAnswer, type RegionFits, type YardContext } from './catalogue-fits'
+import { compareNames, nameKey } from '#shared/utils/species-name'
+import { sowFreshOf } from '#shared/utils/seed-fresh'
 
-export { BLOOM_SEASON } from './catalogue-index'
-export type { CachedSpecies, FitConditions, FitItem, YardContext } from './catalogue-index'
+export { BLOOM_SEASON } from './catalogue-fits'
+export type { CachedSpecies } from './catalogue-index'
+export type { FitConditions, FitItem, YardContext } from './catalogue-fits'
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
 type Executor = Db | Tx
@@ -151,8 +151,6 @@ interface Catalogue {
   table: TableIndex
   search: SearchIndex
   fits: Map<string, Promise<RegionFits>>
-  likes: Lru<string, Promise<Uint8Array>>
-  likeTable?: Promise<LikeTable | null>
 }
 
 let cache: Catalogue | null = null
@@ -172,20 +170,13 @@ async function buildCatalogue(forStamp: string): Promise<Catalogue> {
   const db = useDb()
   const [file, ids, overrideRows] = await Promise.all([
     readCatalogueFile(),
-    // the name ranks come from the database so the table sorts names by its collation, as ORDER BY did
-    db.select({
-      id: catalogueSpecies.id, name: catalogueSpecies.scientificName, origin: catalogueSpecies.origin,
-      nameRank: sql<number>`dense_rank() over (order by ${catalogueSpecies.scientificName})`,
-      commonRank: sql<number>`dense_rank() over (order by ${catalogueSpecies.commonName})`,
-    }).from(catalogueSpecies),
+    db.select({ id: catalogueSpecies.id, name: catalogueSpecies.scientificName, origin: catalogueSpecies.origin }).from(catalogueSpecies),
     db.select().from(catalogueOverrides),
   ])
   const overrides = groupOverrides(overrideRows)
   const entries = new Map<string, Omit<CatalogueEntry, 'regions'>>()
   for (const e of file.species) entries.set(nameKey(e.scientificName), e)
   const list: CachedSpecies[] = []
-  const nameRank: number[] = []
-  const commonRank: number[] = []
   for (const row of ids) {
     const key = nameKey(row.name)
     const own = overrides.get(key)
@@ -193,18 +184,18 @@ async function buildCatalogue(forStamp: string): Promise<Catalogue> {
     if (!base) continue
     const data = withOverrides(base, own)
     list.push({ id: row.id, origin: row.origin, minZoneIndex: zoneIndex(data.minZone), key, data })
-    nameRank.push(Number(row.nameRank))
-    commonRank.push(Number(row.commonRank))
   }
+  const table = buildTableIndex(list)
   return {
     stamp: forStamp, list, byKey: new Map(list.map((s) => [s.key, s])), byId: new Map(list.map((s) => [s.id, s])), regions: new Map(),
-    table: buildTableIndex(list, nameRank, commonRank), search: buildSearchIndex(list), fits: new Map(), likes: new Lru(64),
+    table, search: buildSearchIndex(table), fits: new Map(),
   }
 }
 
 /** This instance's copy of the catalogue, rebuilt when the stamp row says the database changed. */
 export async function useCatalogue(): Promise<Catalogue> {
-  const s = await currentStamp()
+  // while the database is unreachable the copy in hand keeps answering (it cannot have changed meanwhile)
+  const s = await currentStamp().catch((e) => { if (cache && isDatabaseUnreachable(e)) return cache.stamp; throw e })
   if (cache && cache.stamp === s) return cache
   if (!building || building.stamp !== s) {
     const promise = buildCatalogue(s).then((c) => { if (building?.stamp === s) { cache = c; building = null } return c })
@@ -257,6 +248,7 @@ export function factsOf(s: CachedSpecies, status: RegionStatus): SpeciesFacts {
 
 export function detailsOf(s: CachedSpecies, status: RegionStatus): SpeciesDetails {
   const d = s.data
+  const fresh = sowFreshOf(d)
   return {
     ...factsOf(s, status),
     family: d.family, growthHabit: d.growthHabit, bloomMonths: d.bloomMonths, minZone: d.minZone,
@@ -264,7 +256,7 @@ export function detailsOf(s: CachedSpecies, status: RegionStatus): SpeciesDetail
     propagatedBySeed: d.propagatedBySeed, coldStratification: d.coldStratification, coldMoistDays: d.coldMoistDays,
     seedNeedsLight: d.seedNeedsLight, scarify: d.scarify, hotWaterSoak: d.hotWaterSoak, seedsPerPound: d.seedsPerPound,
     seedlingsPerPot: d.seedlingsPerPot, commercialAvailability: d.commercialAvailability, wildlife: d.wildlife,
-    sources: d.sources, estimatedFields: d.estimated, noxiousIn: d.noxiousIn, notes: d.notes ?? null,
+    sowFresh: fresh.value, sources: { ...d.sources, sowFresh: fresh.source }, estimatedFields: d.estimated, noxiousIn: d.noxiousIn, notes: d.notes ?? null,
     usdaSymbol: d.symbol || null, origin: s.origin, hasFacts: d.hasCharacteristics, flowerConspicuous: d.flowerConspicuous,
     duration: d.duration,
   }
@@ -295,126 +287,14 @@ export async function getSpeciesDetails(names: string[], region: string): Promis
 }
 
 // ---------------------------------------------------------------------------------------------------------
-// The species table and search-as-you-type, from this instance's in-memory copy (catalogue-index.ts): sort
-// orders per column made once per copy, so a page is a filter over one precomputed order, cached per query;
-// SQL only for what needs the database's collation (names and terms beyond printable ASCII)
+// The species table and search-as-you-type, from this instance's in-memory copy (catalogue-index.ts): one
+// matching rule (shared/utils/species-name.ts) and sort orders made once per copy
 
 export async function listSpecies(q: SpeciesListQuery) {
   const cat = await useCatalogue()
   const statuses = q.region ? await regionStatuses(cat, q.region) : new Map<number, RegionStatus>()
   if (q.q && (!q.sort || q.sort === 'relevance')) return searchPage(cat.search, q as SpeciesListQuery & { q: string }, statuses)
-  if (!q.q) return tablePage(cat.table, q, statuses)
-  if (isPlainAscii(q.q)) return tablePage(cat.table, q, statuses, await likeNamed(cat, q.q))
-  return listSpeciesSql(q)
-}
-
-/**
- * Which species the table's name filter (`like '%term%'` by the database's collation) keeps, per list position:
- * plain ASCII names are matched in memory; the few others are asked of the database, by id, once per term and copy.
- */
-function likeNamed(cat: Catalogue, term: string): Promise<Uint8Array> {
-  let p = cat.likes.get(term)
-  if (!p) {
-    p = (async () => {
-      cat.likeTable ??= likeTable(cat)
-      const { named, collated } = likeMatches(cat.search, term, await cat.likeTable)
-      if (collated.length) {
-        const s = catalogueSpecies
-        const pattern = `%${term.replace(/[\\%_]/g, (c) => `\\${c}`)}%`
-        const [rows] = await useDb().execute(sql`select ${s.id} as id from ${s} where ${s.id} in (${sql.raw(collated.map((i) => cat.list[i]!.id).join(','))}) and (${s.scientificName} like ${pattern} or ${s.commonName} like ${pattern})`) as unknown as [{ id: number }[]]
-        const position = new Map(collated.map((i) => [cat.list[i]!.id, i]))
-        for (const r of rows) named[position.get(Number(r.id))!] = 1
-      }
-      return named
-    })()
-    p.catch(() => cat.likes.delete(term))
-    cat.likes.set(term, p)
-  }
-  return p
-}
-
-/**
- * Asks the database, once per copy, which printable-ASCII characters each character of the names beyond ASCII
- * matches with `like` in the name columns' collation; null (all such names left to the database) when the columns
- * differ in collation or plain ASCII does not fold exactly by letter case there.
- */
-async function likeTable(cat: Catalogue): Promise<LikeTable | null> {
-  const db = useDb()
-  const [cols] = await db.execute(sql`select collation_name as name from information_schema.columns where table_schema = database() and table_name = 'catalogue_species' and column_name in ('scientific_name', 'common_name')`) as unknown as [{ name: string }[]]
-  const collation = cols[0]?.name
-  if (!collation || !/^\w+$/.test(collation) || cols.some((c) => c.name !== collation)) return null
-  const chars = [...PRINTABLE_ASCII, ...collatedChars(cat.search)]
-  const patterns = PRINTABLE_ASCII.map((c) => ({ c, p: /[\\%_]/.test(c) ? `\\${c}` : c }))
-  const col = (path: string, len: number) => sql.raw(`varchar(${len}) character set utf8mb4 collate ${collation} path '${path}'`)
-  const [rows] = await db.execute(sql`select c.ch as ch, a.c as a, length(weight_string(c.ch)) as w
-    from json_table(${JSON.stringify(chars)}, '$[*]' columns(ch ${col('$', 4)})) c
-    left join json_table(${JSON.stringify(patterns)}, '$[*]' columns(c ${col('$.c', 2)}, p ${col('$.p', 4)})) a on c.ch like a.p`) as unknown as [{ ch: string; a: string | null; w: number }[]]
-  const table: LikeTable = new Map()
-  for (const r of rows) {
-    // a character beyond ASCII with no weight of its own is left out: names holding one stay with the database
-    if (!Number(r.w) && !isPlainAscii(r.ch)) continue
-    if (!table.has(r.ch)) table.set(r.ch, new Set())
-    if (r.a !== null) table.get(r.ch)!.add(r.a)
-  }
-  return likeTableFoldsAsciiCase(table) ? table : null
-}
-
-/** A search term that is not printable ASCII, with a column sort: all in SQL, where the collation folds accents. */
-async function listSpeciesSql(q: SpeciesListQuery) {
-  const db = useDb()
-  const page = q.page ?? 1
-  const pageSize = q.pageSize ?? SPECIES_PAGE_SIZE
-  const s = catalogueSpecies
-  const r = catalogueRegions
-  const status = sql<RegionStatus>`coalesce(${r.status}, 'absent')`
-  const where: SQL[] = []
-  const term = q.q?.replace(/[\\%_]/g, (c) => `\\${c}`)
-  if (term) where.push(or(like(s.scientificName, `%${term}%`), like(s.commonName, `%${term}%`))!)
-  if (q.layer) where.push(eq(s.layer, q.layer))
-  if (q.sun) where.push(sql`find_in_set(${q.sun}, ${s.sun})`)
-  if (q.moisture) where.push(sql`find_in_set(${q.moisture}, ${s.moisture})`)
-  if (q.soil) where.push(sql`find_in_set(${q.soil}, ${s.soil})`)
-  if (q.hasFacts) where.push(eq(s.hasFacts, true))
-  if (q.status) where.push(q.status === 'absent' ? sql`(${r.status} is null or ${r.status} = 'absent')` : eq(r.status, q.status))
-  const region = q.region ?? '--'
-  const join = and(eq(r.speciesId, s.id), eq(r.region, region))
-  const cond = where.length ? and(...where) : undefined
-  const dir = q.dir === 'desc' ? desc : asc
-  const sort = q.sort ?? (term ? 'relevance' : 'name')
-  const order: SQL[] = {
-    // plantable species (with USDA facts) first, then names starting with the term
-    relevance: [desc(s.hasFacts), desc(sql`(${s.scientificName} like ${`${term ?? ''}%`} or ${s.commonName} like ${`${term ?? ''}%`} or ${s.commonName} like ${`% ${term ?? ''}%`})`), asc(s.scientificName)],
-    name: [dir(s.scientificName)],
-    common: [dir(sql`${s.commonName} is null`), dir(s.commonName), asc(s.scientificName)],
-    layer: [dir(s.layer), asc(s.scientificName)],
-    height: [dir(s.height), asc(s.scientificName)],
-    spread: [dir(s.spread), asc(s.scientificName)],
-    minZone: [dir(sql`${s.minZoneIndex} is null`), dir(s.minZoneIndex), asc(s.scientificName)],
-    status: [dir(status), asc(s.scientificName)],
-  }[sort]
-  const [rows, [count]] = await Promise.all([
-    db.select({
-      scientificName: s.scientificName, commonName: s.commonName, layer: s.layer, height: s.height, spread: s.spread,
-      sun: s.sun, moisture: s.moisture, soil: s.soil, bloomMonths: s.bloomMonths, minZone: s.minZone, toxic: s.toxic,
-      hasFacts: s.hasFacts, origin: s.origin, status, estimated: sql<string>`json_extract(${s.data}, '$.estimated')`,
-      spacing: sql<number | null>`json_value(${s.data}, '$.spacing')`,
-    }).from(s).leftJoin(r, join).where(cond).orderBy(...order).limit(pageSize).offset((page - 1) * pageSize),
-    db.select({ n: sql<number>`count(*)` }).from(s).leftJoin(r, join).where(cond),
-  ])
-  const split = (v: string) => (v ? v.split(',') : [])
-  return {
-    items: rows.map((row) => ({
-      ...row,
-      status: q.region ? row.status : null,
-      sun: split(row.sun), moisture: split(row.moisture), soil: split(row.soil),
-      bloomMonths: split(row.bloomMonths).map(Number),
-      spacing: row.spacing === null ? null : Number(row.spacing),
-      estimated: (typeof row.estimated === 'string' ? JSON.parse(row.estimated) : row.estimated ?? []) as string[],
-    })),
-    total: Number(count?.n ?? 0),
-    page,
-    pageSize,
-  }
+  return tablePage(cat.table, q, statuses, q.q ? namedMask(cat.search, q.q) : undefined)
 }
 
 /** One species with where it grows and the coordinator's overrides, or null. */
@@ -429,7 +309,7 @@ export async function speciesPage(name: string, region?: string) {
       .from(catalogueOverrides).where(eq(catalogueOverrides.scientificName, s.data.scientificName)),
   ])
   const status = region ? (regions.find((r) => r.region === region)?.status ?? 'absent') : 'absent'
-  const named = regions.map((r) => ({ ...r, name: REGIONS[r.region] ?? r.region })).sort((a, b) => a.name.localeCompare(b.name))
+  const named = regions.map((r) => ({ ...r, name: REGIONS[r.region] ?? r.region })).sort((a, b) => compareNames(a.name, b.name))
   return {
     ...detailsOf(s, status),
     region: region ?? null,
@@ -444,10 +324,10 @@ export async function speciesPage(name: string, region?: string) {
 // ---------------------------------------------------------------------------------------------------------
 // Good fits and swaps, over the in-memory copy (ranking in catalogue-index.ts)
 
-/** Native species that fit a spot, best first. */
-export async function findFits(c: FitConditions, yard: YardContext | null, limit = 50): Promise<FitItem[]> {
+/** Native species that fit a spot, best first: those with a known fit, and those whose site needs are not recorded. */
+export async function findFits(c: FitConditions, yard: YardContext | null, limit = 50, page = 1): Promise<FitsAnswer> {
   const cat = await useCatalogue()
-  return rankFits(await regionFits(cat, c.region), c, yard, limit)
+  return rankFits(await regionFits(cat, c.region), c, yard, limit, page)
 }
 
 /** What a yard's native plantings already give: bloom months and layers. */
@@ -477,13 +357,14 @@ export async function findSwaps(name: string, c: Omit<FitConditions, 'layer' | '
 // ---------------------------------------------------------------------------------------------------------
 // Coordinator overrides: CSV preview and apply, materializing into the species and region tables
 
-type OverrideRow = Pick<typeof catalogueOverrides.$inferSelect, 'scientificName' | 'region' | 'field' | 'value' | 'source'>
+export type OverrideRow = Pick<typeof catalogueOverrides.$inferSelect, 'scientificName' | 'region' | 'field' | 'value' | 'source'>
 
-function sameValue(a: unknown, b: unknown) {
+export function sameValue(a: unknown, b: unknown) {
   return JSON.stringify(a ?? null) === JSON.stringify(b ?? null)
 }
 
-function currentValue(data: CatalogueSpeciesData, field: OverrideField): unknown {
+export function currentValue(data: CatalogueSpeciesData, field: OverrideField): unknown {
+  if (field === 'sowFresh') return sowFreshOf(data).value
   return (data as unknown as Record<string, unknown>)[field] ?? null
 }
 
@@ -545,16 +426,21 @@ export async function planImport(text: string): Promise<ImportPlan> {
 export async function applyImport(text: string, userId: number) {
   const plan = await planImport(text)
   if (plan.preview.errorCount) return { applied: false as const, preview: plan.preview }
+  await applyOverrides(plan.overrides, userId)
+  return { applied: true as const, preview: plan.preview }
+}
+
+/** Stores the coordinator's overrides and writes them through to the species and region tables, in one transaction. */
+export async function applyOverrides(overrides: OverrideRow[], userId: number) {
   await useDb().transaction(async (tx) => {
-    for (let i = 0; i < plan.overrides.length; i += 1000) {
-      await tx.insert(catalogueOverrides).values(plan.overrides.slice(i, i + 1000).map((o) => ({ ...o, createdBy: userId })))
+    for (let i = 0; i < overrides.length; i += 1000) {
+      await tx.insert(catalogueOverrides).values(overrides.slice(i, i + 1000).map((o) => ({ ...o, createdBy: userId })))
         .onDuplicateKeyUpdate({ set: { value: sql`values(${catalogueOverrides.value})`, source: sql`values(${catalogueOverrides.source})`, createdBy: userId } })
     }
-    await materialize(tx, plan.overrides, (await useCatalogue()).byKey)
+    await materialize(tx, overrides, (await useCatalogue()).byKey)
     await bumpStamp(tx)
   })
   stampCheckedAt = 0
-  return { applied: true as const, preview: plan.preview }
 }
 
 function groupOverrides(rows: OverrideRow[]): Map<string, OverrideRow[]> {
@@ -646,18 +532,18 @@ function newCoordinatorSpecies(name: string, layer: Layer): CatalogueSpeciesData
 export async function exportCsv(q: ExportQuery): Promise<string> {
   const cat = await useCatalogue()
   const statuses = q.region ? await regionStatuses(cat, q.region) : null
-  const term = q.q?.toLowerCase()
+  const named = q.q ? namedMask(cat.search, q.q) : null
   const rows: Record<string, unknown>[] = []
-  for (const s of cat.list) {
+  for (const [i, s] of cat.list.entries()) {
     const d = s.data
     if (q.layer && d.layer !== q.layer) continue
-    if (term && !s.key.includes(term) && !(d.commonName ?? '').toLowerCase().includes(term)) continue
+    if (named && !named[i]) continue
     const status = statuses ? statuses.get(s.id) ?? 'absent' : null
     if (q.status && status !== q.status) continue
-    const record: Record<string, unknown> = { ...d, region: q.region ?? '', status, source: '', estimated: d.estimated, origin: s.origin, usdaSymbol: d.symbol }
+    const record: Record<string, unknown> = { ...d, sowFresh: sowFreshOf(d).value, region: q.region ?? '', status, source: '', estimated: d.estimated, origin: s.origin, usdaSymbol: d.symbol }
     rows.push(record)
   }
-  rows.sort((a, b) => String(a.scientificName).localeCompare(String(b.scientificName)))
+  rows.sort((a, b) => compareNames(String(a.scientificName), String(b.scientificName)))
   return catalogueToCsv([...CSV_COLUMNS, 'estimated', 'origin', 'usdaSymbol'], rows)
 }
 

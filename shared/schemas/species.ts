@@ -41,6 +41,8 @@ export const fitsQuery = z.object({
   maxSpread: optional(z.coerce.number().positive().max(60)),
   yardId: optional(z.coerce.number().int().positive()),
   limit: optional(z.coerce.number().int().min(1).max(200)),
+  /** the same page of both groups (known fit, site needs not recorded) */
+  page: optional(z.coerce.number().int().min(1).max(1_000)),
 }).refine((q) => q.region || q.yardId, { path: ['region'], message: 'Choose a region (or a yard)' })
 
 export const swapsQuery = z.object({
@@ -72,7 +74,7 @@ export type ExportQuery = z.infer<typeof exportQuery>
 export const CSV_COLUMNS = [
   'scientificName', 'region', 'status', 'commonName', 'layer', 'height', 'spread', 'spacing', 'sun', 'moisture', 'soil',
   'bloomMonths', 'minZone', 'toxicity', 'propagatedBySeed', 'coldStratification', 'coldMoistDays', 'seedNeedsLight',
-  'scarify', 'hotWaterSoak', 'seedsPerPound', 'seedlingsPerPot', 'commercialAvailability', 'notes', 'source',
+  'scarify', 'hotWaterSoak', 'sowFresh', 'seedsPerPound', 'seedlingsPerPot', 'commercialAvailability', 'notes', 'source',
 ] as const
 /** Columns the export adds for reading that the import accepts and ignores. */
 export const CSV_READ_ONLY_COLUMNS = ['estimated', 'origin', 'usdaSymbol'] as const
@@ -94,3 +96,38 @@ export interface ImportPreview {
   changeCount: number
   newSpecies: string[]
 }
+
+/** Where a coordinator's value comes from, in plain words (CSV `source` column and the edit form alike). */
+export const SOURCE_PATTERN = /^[\p{L}\p{N} .,;:()'&/+-]{1,120}$/u
+export const TOXICITY = ['none', 'slight', 'moderate', 'severe'] as const
+
+const metres = (max: number) => z.number({ error: 'Enter a number of metres' }).positive('Must be more than 0').max(max, `At most ${max} m`)
+const blankToUndefined = <T extends z.ZodType>(s: T) => z.preprocess((v) => (v === '' || v === null ? undefined : v), s.optional())
+
+/**
+ * The coordinator's form for one species: each field given replaces the catalogue's value (a blank leaves it);
+ * `status` with `region` is the organization's regional list entry; `source` says where the values come from.
+ */
+export const speciesEditBody = z.object({
+  commonName: blankToUndefined(z.string().trim().max(200, 'At most 200 characters')),
+  layer: blankToUndefined(z.enum(LAYERS, 'Choose tree, shrub or ground')),
+  height: blankToUndefined(metres(120)),
+  spread: blankToUndefined(metres(60)),
+  spacing: blankToUndefined(metres(20)),
+  sun: z.array(z.enum(SUN)).max(3).optional(),
+  moisture: z.array(z.enum(MOISTURE)).max(3).optional(),
+  soil: z.array(z.enum(SOIL)).max(3).optional(),
+  bloomMonths: z.array(z.number().int().min(1, 'Months are 1 to 12').max(12, 'Months are 1 to 12')).max(12).optional(),
+  minZone: blankToUndefined(hardinessZone),
+  toxicity: blankToUndefined(z.enum(TOXICITY, 'Choose none, slight, moderate or severe')),
+  coldMoistDays: blankToUndefined(z.number({ error: 'Enter a whole number of days' }).int('Enter a whole number of days').min(0).max(365, 'At most 365 days')),
+  seedsPerPound: blankToUndefined(z.number({ error: 'Enter a whole number' }).int('Enter a whole number').min(1).max(1e9)),
+  commercialAvailability: blankToUndefined(z.string().trim().max(80, 'At most 80 characters')),
+  notes: blankToUndefined(z.string().trim().max(1000, 'At most 1000 characters')),
+  region: blankToUndefined(regionCode),
+  status: blankToUndefined(z.enum(REGION_STATUSES)),
+  source: z.string().trim().regex(SOURCE_PATTERN, 'Name the source in plain words (at most 120 characters), e.g. our 2026 regional list'),
+}).refine((b) => !b.status || b.region, { path: ['region'], message: 'Choose the state or province this status is for' })
+
+export type SpeciesEditBody = z.infer<typeof speciesEditBody>
+export const SPECIES_EDIT_FIELDS = ['commonName', 'layer', 'height', 'spread', 'spacing', 'sun', 'moisture', 'soil', 'bloomMonths', 'minZone', 'toxicity', 'coldMoistDays', 'seedsPerPound', 'commercialAvailability', 'notes'] as const satisfies readonly OverrideField[]

@@ -4,6 +4,8 @@
 // ../shared/data/usda-plants/README.md; the USDA 2023 Plant Hardiness Zone Map for the zone table.
 import type { GrowthRate, Layer, Moisture, RegionStatus, Soil, Sun } from '../types/species'
 import { REGIONS } from './regions'
+import { nameKey } from './species-name'
+import { seedlingsPerPotFor } from './seed-size'
 
 export const USDA = 'USDA PLANTS'
 export const COORDINATOR = 'coordinator'
@@ -125,13 +127,15 @@ export function bareName(withAuthor: string): string {
   const cleaned = withAuthor.replace(/\[[^\]]*\]/g, ' ').replace(/\s+X\s+/g, ' ×').replace(/\s+×\s+/g, ' ×').trim()
   const tokens = cleaned.split(/\s+/)
   const out: string[] = []
-  const genus = tokens[0]
+  // a nothogenus written with a capital X glued on (native-status file: `XAchnella caduca`) is `×Achnella`
+  const genus = tokens[0]?.replace(/^X(?=[A-Z][a-z])/, '×')
   if (!genus) return ''
   out.push(genus)
   const epithet = tokens[1]
   if (epithet && /^×?[a-z][a-z.-]*$/.test(epithet)) out.push(epithet)
   else return out.join(' ')
-  const epithetLike = (t: string | undefined) => !!t && /^×?[a-z][a-z.-]*$/.test(t) && !['ex', 'in', 'et'].includes(t)
+  // a rank word is never an epithet: in `Burm. f. var. diffusa` the `f.` ends the author (filius), not a forma
+  const epithetLike = (t: string | undefined) => !!t && /^×?[a-z][a-z.-]*$/.test(t) && !['ex', 'in', 'et'].includes(t) && !RANK_WORDS.has(t)
   for (let i = 2; i < tokens.length; i++) {
     const t = tokens[i]!
     if ((RANK_WORDS.has(t) || /^×(ssp\.|var\.|f\.)$/.test(t)) && epithetLike(tokens[i + 1])) {
@@ -149,11 +153,6 @@ export function bareName(withAuthor: string): string {
 /** The species part of a bare name: `Poa pratensis ssp. pratensis` → `Poa pratensis`. */
 export function speciesOf(bare: string): string {
   return bare.split(' ').slice(0, 2).join(' ')
-}
-
-/** The key every name lookup uses: lower case, one space, cultivar in quotes dropped, hybrid X as ×. */
-export function nameKey(name: string): string {
-  return name.replace(/'[^']*'|"[^"]*"|‘[^’]*’/g, ' ').replace(/\s+[x×]\s+/gi, ' ×').replace(/\s+/g, ' ').trim().toLowerCase()
 }
 
 // ---------------------------------------------------------------------------------------------------------
@@ -346,12 +345,9 @@ export function defaultSeedCoat(family: string | null, genus: string | null, lay
   return { scarify: legume, hotWaterSoak: (legume && layer !== 'ground') || genus === 'Ceanothus' }
 }
 
-/** Seedlings one 10 cm (4-inch) pot gives when sown and pricked out: perennials 12, shrubs 6, trees 3; big seed fewer. */
+/** Seedlings one 10 cm (4-inch) pot gives when sown and pricked out: the seed-size rule (shared/utils/seed-size.ts). */
 export function defaultSeedlingsPerPot(layer: Layer, seedsPerPound: number | null): number {
-  const base = layer === 'ground' ? 12 : layer === 'shrub' ? 6 : 3
-  if (seedsPerPound !== null && seedsPerPound < 1_000) return 1
-  if (seedsPerPound !== null && seedsPerPound < 10_000) return Math.max(1, Math.round(base / 3))
-  return base
+  return seedlingsPerPotFor(layer, seedsPerPound)
 }
 
 /** Turf grasses whose area is lawn (common practice list of North American lawn species, native buffalograss included). */
@@ -416,6 +412,8 @@ export interface CatalogueEntry {
   seedNeedsLight: boolean | null
   scarify: boolean
   hotWaterSoak: boolean
+  /** seed that dies when dried: set only by a coordinator; absent → the default list (shared/utils/seed-fresh.ts) */
+  sowFresh?: boolean | null
   seedsPerPound: number | null
   seedlingsPerPot: number | null
   commercialAvailability: string | null

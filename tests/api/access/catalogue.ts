@@ -10,6 +10,8 @@ const CSV = 'scientificName,region,status\nAsclepias tuberosa,US-OH,native\n'
 export const rows: AccessRow[] = [
   { file: 'species/index.get.ts', method: 'GET', request: () => ({ path: '/api/species?region=US-OH&q=milkweed' }), expect: ALL_200 },
   { file: 'species/[name].get.ts', method: 'GET', request: () => ({ path: '/api/species/Asclepias%20tuberosa?region=US-OH' }), expect: ALL_200 },
+  // a form with nothing changed: the coordinator's save succeeds without altering anything
+  { file: 'species/[name].put.ts', method: 'PUT', request: () => ({ path: '/api/species/Asclepias%20tuberosa', body: { source: 'access check' } }), expect: COORDINATOR },
   { file: 'fits.get.ts', method: 'GET', request: () => ({ path: '/api/fits?region=US-OH&zone=6a&sun=full' }), expect: ALL_200 },
   {
     file: 'fits.get.ts', method: 'GET',

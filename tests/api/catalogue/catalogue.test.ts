@@ -90,7 +90,12 @@ describe('good fits', () => {
         if (params.get('sun')) expect(item.sun).toContain(params.get('sun'))
         if (params.get('layer')) expect(item.layer).toBe(params.get('layer'))
         if (params.get('maxSpread')) expect(item.spread).toBeLessThanOrEqual(Number(params.get('maxSpread')))
-        expect(item.reasons.length).toBeGreaterThan(0)
+        expect(item.fit).toBe('known')
+        expect(item.reasons.length + r.body.shared.length).toBeGreaterThan(0)
+      }
+      for (const item of r.body.unrecorded) {
+        expect(item.status).toBe('native')
+        expect(item.reasons.join(' ')).toMatch(/Site needs not recorded — check your regional list/)
       }
       const scores = r.body.items.map((i: any) => i.score)
       expect(scores).toEqual([...scores].sort((a: number, b: number) => b - a))
@@ -104,11 +109,76 @@ describe('good fits', () => {
     const yard = (await client.post('/api/yards', { name: 'Fits yard', region: 'US-OH', document: doc })).body
     const r = await client.get(`/api/fits?yardId=${yard.id}&zone=6a&sun=full&limit=100`)
     expect(r.status).toBe(200)
-    const reasons = r.body.items.flatMap((i: any) => i.reasons).join(' | ')
+    const reasons = [...r.body.shared, ...r.body.items.flatMap((i: any) => i.reasons)].join(' | ')
     expect(reasons).toMatch(/when nothing native in your yard does/)
     expect(reasons).toMatch(/layer your yard lacks/)
     // the yard's only native blooms in July (USDA bloom_period Mid Summer): no fit claims to fill July
     expect(reasons).not.toMatch(/Blooms in [^|]*July[^|]*when nothing/)
+  })
+})
+
+describe('fits keep natives without USDA traits (US-OH, zone 6a)', () => {
+  it('reaches at least 1,500 Ohio natives across the bed settings, paging both groups', { timeout: 120_000 }, async () => {
+    const reached = new Set<string>()
+    for (const sun of ['full', 'part', 'shade']) for (const moisture of ['dry', 'medium', 'wet']) {
+      for (let page = 1; page < 50; page++) {
+        const r = await anon.get(`/api/fits?region=US-OH&zone=6a&sun=${sun}&moisture=${moisture}&limit=200&page=${page}`)
+        expect(r.status).toBe(200)
+        for (const i of [...r.body.items, ...r.body.unrecorded]) reached.add(i.scientificName)
+        if (r.body.items.length < 200 && r.body.unrecorded.length < 200) break
+      }
+    }
+    // USDA PLANTS: 2,205 taxa native in Ohio; 669 have a minimum temperature
+    expect(reached.size).toBeGreaterThanOrEqual(1500)
+  })
+  it('gives a demo yard\'s bed suggestions from both groups, the unrecorded ones saying so', async () => {
+    const homeowner = await demo('homeowner')
+    const yards = (await homeowner.get('/api/yards')).body
+    const list = Array.isArray(yards) ? yards : yards.items
+    expect(list.length).toBeGreaterThan(0)
+    let beds = 0
+    for (const y of list) {
+      const yard = (await homeowner.get(`/api/yards/${y.id}`)).body
+      // each bed as the editor's fits panel asks for it: its sun, soil and moisture, and its narrower side as room
+      for (const bed of yard.document.areas.filter((a: any) => a.kind === 'bed')) {
+        const xs = bed.points.map((p: number[]) => p[0])
+        const ys = bed.points.map((p: number[]) => p[1])
+        const room = Math.min(Math.max(...xs) - Math.min(...xs), Math.max(...ys) - Math.min(...ys))
+        const cond = Object.entries({ sun: bed.sun, soil: bed.soil, moisture: bed.moisture }).filter(([, v]) => v).map(([k, v]) => `&${k}=${v}`).join('')
+        const r = await homeowner.get(`/api/fits?yardId=${y.id}${cond}&maxSpread=${room.toFixed(2)}&limit=8`)
+        expect(r.status).toBe(200)
+        expect(r.body.items.length, bed.label).toBeGreaterThan(0)
+        expect(r.body.unrecorded.length, bed.label).toBeGreaterThan(0)
+        for (const i of r.body.unrecorded) {
+          expect(i.fit).toBe('unrecorded')
+          expect(i.reasons.some((x: string) => x.startsWith('Site needs not recorded — check your regional list')), i.scientificName).toBe(true)
+        }
+        beds++
+      }
+    }
+    expect(beds).toBeGreaterThan(0)
+  })
+  it('names the source of each fact and gives a score out of 100', async () => {
+    const r = await anon.get('/api/fits?region=US-OH&zone=6a&layer=ground&limit=200')
+    const all = [...r.body.items, ...r.body.unrecorded]
+    for (const i of all) {
+      expect(i.score).toBeGreaterThanOrEqual(0)
+      expect(i.score).toBeLessThanOrEqual(100)
+      expect(['USDA PLANTS', 'estimated', 'estimated from its native range', "your organization's list"]).toContain(i.sources.height)
+    }
+    // New England aster: no USDA minimum temperature; native from Minnesota east, so estimated from its range
+    const aster = await detail('Symphyotrichum novae-angliae', 'US-OH')
+    expect(aster.minZone).not.toBeNull()
+    expect(aster.sources.minZone).toMatch(/^estimated from its native range/)
+  })
+  it('rejects a zone outside the USDA 2023 map\'s 1a–13b, naming the field', async () => {
+    for (const z of ['0a', '14a', '6c', 'zone 6']) {
+      const r = await anon.get(`/api/fits?region=US-OH&zone=${encodeURIComponent(z)}`)
+      expect(r.status, z).toBe(400)
+      expect(r.body.data.fields.zone).toMatch(/USDA/)
+    }
+    expect((await anon.get('/api/fits?region=US-OH&zone=13b')).status).toBe(200)
+    expect((await anon.get('/api/fits?region=US-OH&zone=1a')).status).toBe(200)
   })
 })
 

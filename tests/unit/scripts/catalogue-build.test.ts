@@ -111,6 +111,10 @@ describe.skipIf(!existsSync(FULL))('full cross-check of the committed catalogue 
         const t = Number(c.temperature_minimum_f)
         const i = Math.max(0, Math.min(25, Math.floor((t + 60) / 5)))
         check(e.minZone === `${Math.floor(i / 2) + 1}${i % 2 ? 'b' : 'a'}`, `${e.scientificName} zone ${e.minZone} for ${t} °F`)
+      } else if (e.minZone) {
+        // no USDA minimum temperature: the zone is an estimate from a region where the taxon is native
+        check(e.estimated.includes('minZone') && e.sources.minZone!.startsWith('estimated from its native range'), `${e.scientificName} estimated zone marked`)
+        check(Object.values(e.regions).some((s) => s === 'native' || s === 'nativeAndIntroduced'), `${e.scientificName} estimated zone without a native region`)
       }
       if (c) {
         check(e.soil.includes('sand') === usdaTrue(c.adapted_to_coarse_textured_soils) && e.soil.includes('clay') === usdaTrue(c.adapted_to_fine_textured_soils), `${e.scientificName} soil`)

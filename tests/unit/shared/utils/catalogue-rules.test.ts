@@ -2,10 +2,11 @@
 import { describe, it, expect } from 'vitest'
 import {
   zoneFromMinTemperatureF, zoneIndex, zoneName, parseNativeStatus, regionStatus, usdaAreaForRegion, regionCodeForStateName,
-  parseNoxiousStates, bareName, nameKey, speciesOf, layerFromHabit, sunFromShadeTolerance, moistureFrom, soilFromTextures,
+  parseNoxiousStates, bareName, speciesOf, layerFromHabit, sunFromShadeTolerance, moistureFrom, soilFromTextures,
   bloomMonthsFrom, toxicityFrom, numberOrNull, defaultSpreadM, defaultSpacingM, defaultColdMoistDays, defaultSeedNeedsLight,
   defaultSeedCoat, defaultSeedlingsPerPot, isLawnSpecies, deriveFacts, refreshEstimates, USDA,
 } from '#shared/utils/catalogue-rules'
+import { nameKey } from '#shared/utils/species-name'
 
 describe('hardiness zone from minimum temperature (USDA 2023 Plant Hardiness Zone Map table)', () => {
   // USDA 2023 map legend: 3b is −35 to −30 °F, 6a −10 to −5 °F, 7a 0 to 5 °F; lower bound inclusive is our stated assumption
@@ -93,6 +94,23 @@ describe('names', () => {
     expect(bareName('Agastache pallidiflora ssp. neomexicana var. havardii')).toBe('Agastache pallidiflora ssp. neomexicana var. havardii')
     expect(bareName('Cyanea st.-johnii (Hosaka) H. St. John')).toBe('Cyanea st.-johnii')
     expect(bareName('Dicranum scoparium Hedw. f. ex Brid.')).toBe('Dicranum scoparium')
+  })
+  it('reads a nothogenus glued to a capital X as the hybrid sign (plant_native_status_codes.csv.gz: "XAchnella caduca")', () => {
+    // plants.csv.gz writes the same taxon "×Achnella caduca (Beal) Barkworth [Achnatherum hymenoides × Nassella viridula]"
+    expect(bareName('XAchnella caduca')).toBe('×Achnella caduca')
+    expect(nameKey(bareName('XAchnella caduca'))).toBe(nameKey(bareName('×Achnella caduca (Beal) Barkworth [Achnatherum hymenoides × Nassella viridula]')))
+    expect(bareName('XAgroelymus adamsii')).toBe('×Agroelymus adamsii')
+    // a genus that merely starts with X is not a hybrid
+    expect(bareName('Xanthium strumarium L.')).toBe('Xanthium strumarium')
+    expect(bareName('Xyris difformis Chapm.')).toBe('Xyris difformis')
+  })
+  it('reads "f." right before a rank word as the end of the author (filius), not a forma (plants.csv.gz rows)', () => {
+    expect(bareName('Commelina diffusa Burm. f. var. diffusa ')).toBe('Commelina diffusa var. diffusa')
+    expect(bareName('Commelina diffusa Burm. f. var. gigas (Small) Faden')).toBe('Commelina diffusa var. gigas')
+    expect(bareName('Carex heleonastes L. f. ssp. neurochlaena (T. Holm) Böcher')).toBe('Carex heleonastes ssp. neurochlaena')
+    expect(bareName('Festuca brachyphylla Schult. ex Schult. & Schult. f. ssp. brachyphylla ')).toBe('Festuca brachyphylla ssp. brachyphylla')
+    // a real forma is kept
+    expect(bareName('Crataegus crus-galli L. f. macra')).toBe('Crataegus crus-galli f. macra')
   })
   it('makes lookup keys that ignore case, spacing and a quoted cultivar', () => {
     expect(nameKey("Echinacea  purpurea 'Magnus'")).toBe('echinacea purpurea')
@@ -182,7 +200,9 @@ describe('documented defaults for what USDA lacks (common practice, from memory)
     expect(defaultSeedCoat('Fabaceae', 'Cercis', 'tree')).toEqual({ scarify: true, hotWaterSoak: true })
     expect(defaultSeedCoat('Asteraceae', 'Echinacea', 'ground')).toEqual({ scarify: false, hotWaterSoak: false })
     expect(defaultSeedlingsPerPot('ground', 500_000)).toBe(12)
-    expect(defaultSeedlingsPerPot('shrub', 5_000)).toBe(2)
+    // large seed (2,000–19,999 a pound) gives at most 4 seedlings a pot, and shrubs 6 at most (common practice)
+    expect(defaultSeedlingsPerPot('shrub', 5_000)).toBe(4)
+    expect(defaultSeedlingsPerPot('tree', 5_000)).toBe(3)
     expect(defaultSeedlingsPerPot('tree', 100)).toBe(1)
   })
   it('knows turf grasses', () => {
