@@ -26,7 +26,7 @@ import type { Units } from '#shared/utils/units'
 import type { Point } from '#shared/utils/polygon'
 import { allIds, deleteElements, duplicateElements, findElement, layeredShapes, LOT_ID, newId, nextPhase, setPhase, shiftZ, snapStep, translateElements, type Element } from '#shared/utils/yard-edits'
 import { phaseOf, type Phase } from '#shared/schemas/yard-document'
-import { PHASE_LABELS } from '#shared/utils/phase-labels'
+import { PHASE_LABELS } from '#shared/utils/labels'
 import type { Score, Share } from '#shared/schemas/score'
 
 // the pure edits and geometry live in shared/utils/yard-edits.ts; re-exported for the editor's components
