@@ -261,6 +261,13 @@ export function stopAll() {
 }
 
 export function build(env) {
+  // the root tsconfig.json points into .nuxt/, which the build's TypeScript transforms read (a fresh checkout lacks it)
+  if (!existsSync(join(ROOT, '.nuxt', 'tsconfig.server.json'))) {
+    log('generating .nuxt/ (nuxt prepare)')
+    const { WW_NUXT_DIR: _, ...prepareEnv } = env
+    mkdirSync(DATA, { recursive: true })
+    run('flock', [join(DATA, 'typecheck.lock'), 'npx', 'nuxt', 'prepare'], { env: { ...process.env, ...prepareEnv, WW_NUXT_DIR: '' } })
+  }
   log('building the app (nuxt build)')
   run('npx', ['nuxt', 'build'], { env: { ...process.env, ...env } })
 }

@@ -1,6 +1,5 @@
 import { z } from 'zod'
-import { isoDay } from './seed'
-import { regionCode } from './common'
+import { isoDate as isoDay, regionCode } from './common'
 import { ORDER_STATUSES, DELIVERY_KINDS, PAYMENT_KINDS } from '../utils/labels'
 
 // Bodies and queries of the seed sale and donations (pages validate their forms with the same schemas).

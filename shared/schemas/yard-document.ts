@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { firstSelfIntersection, type Point } from '../utils/polygon'
-import { regionCode, hardinessZone, monthDay } from './common'
+import { regionCode, hardinessZone, monthDay, isoDate } from './common'
 import { frostOrderOk } from '../utils/seed-season'
 
 // The yard document: our own JSON format (format tag "wildward.yard/2"), stored per yard and used for export
@@ -38,7 +38,7 @@ export const START_SIZES = ['seed', 'plug', 'pot', 'bare-root'] as const
 export type StartSize = (typeof START_SIZES)[number]
 const phase = z.enum(PHASES, { error: 'The phase is one of existing, planned or removing' })
 // the day work was marked done (planted or built)
-const doneOn = z.iso.date({ error: 'A date is written YYYY-MM-DD' })
+const doneOn = isoDate
 
 export const AREA_KINDS = ['building', 'paving', 'bed', 'water'] as const
 export const SUN = ['full', 'part', 'shade'] as const

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { regionCode } from './common'
+import { regionCode, isoDate } from './common'
 import { yardDocument } from './yard-document'
 
 const yardName = z.string().trim().min(1, 'Give the yard a name').max(120)
@@ -32,6 +32,6 @@ export const markWorkBody = z.strictObject({
   version: z.number({ error: 'The version of the plan is missing' }).int().positive(),
   action: z.enum(WORK_ACTIONS, { error: 'Choose planted or removed' }),
   ids: z.array(z.string().min(1).max(64)).min(1, 'Choose at least one planting or area').max(5000),
-  date: z.iso.date({ error: 'Give the date as YYYY-MM-DD' }).refine((d) => d <= todayIso(), 'Work cannot be marked done on a date in the future'),
+  date: isoDate.refine((d) => d <= todayIso(), 'Work cannot be marked done on a date in the future'),
 })
 export type MarkWorkBody = z.infer<typeof markWorkBody>
