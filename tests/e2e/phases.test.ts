@@ -42,7 +42,7 @@ describe('phases in the editor', () => {
     await page.mouse.click(box.x + box.width * 0.35, box.y + box.height * 0.35)
     await page.locator('[data-tool=select]').click()
     await page.keyboard.press('t')
-    await expect.poll(() => page.locator('[data-test=element-list]').textContent()).toMatch(/To plant/)
+    await expect.poll(() => page.locator('[data-test=element-list] [data-element]', { hasText: 'To plant' }).count()).toBe(1)
     // the barberry: to remove, by one click
     await page.locator('[data-element=barberry]').click()
     await page.locator('[data-set-phase=removing]').click()
