@@ -25,6 +25,12 @@ export const AREA_STYLES: Record<'lot' | 'building' | 'paving' | 'bed' | 'water'
 
 export const LAWN_FILL = '#d7e6b9'
 
+/** How the plan marks the phases (there now is drawn plain): plan ink for what is to plant, a strike for what is to go. */
+export const PHASE_STYLES: Record<'planned' | 'removing', { stroke: string; dash: number[]; width: number; swatch: string }> = {
+  planned: { stroke: '#1b6f86', dash: [2, 4], width: 2.5, swatch: 'repeating-linear-gradient(90deg, #1b6f86 0 2px, transparent 2px 5px)' },
+  removing: { stroke: '#7a2a1c', dash: [9, 3, 2, 3], width: 2, swatch: 'linear-gradient(135deg, transparent 45%, #7a2a1c 45% 55%, transparent 55%)' },
+}
+
 export const LINE_STYLES = {
   overhead: { stroke: '#3d3d52', dash: [10, 4, 2, 4], label: 'Overhead line' },
   buried: { stroke: '#c05f00', dash: [3, 4], label: 'Buried line' },

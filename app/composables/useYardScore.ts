@@ -107,7 +107,7 @@ export function useYardScore() {
     if (inputs.goal === null) return
     const started = performance.now()
     const doc = withPreview({ ...toRaw(editor.doc), region: editor.region } as YardDocument, view.dragPreview)
-    view.score = scoreYard(doc, inputs.facts, inputs.goal, editor.region, inputs.memoOf())
+    view.score = scoreYard(doc, inputs.facts, inputs.goal, editor.region, inputs.memoOf(), { years: view.years })
     // a User Timing entry (only the latest kept) that the editor benchmark observes
     performance.clearMeasures('wildward:score')
     performance.measure('wildward:score', { start: started })
@@ -131,7 +131,7 @@ export function useYardScore() {
     }
   }
 
-  watch(() => [editor.revision, view.dragPreview], run)
+  watch(() => [editor.revision, view.dragPreview, view.years], run)
   watch(() => [inputs.facts, inputs.goal, inputs.pending] as const, run)
   watch(() => editor.region, (r) => { inputs.moveTo(r); run() })
   onMounted(start)

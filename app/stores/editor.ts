@@ -24,7 +24,9 @@ import { computed, ref, shallowRef, triggerRef } from 'vue'
 import { emptyYardDocument, isAreaPlanting, type YardArea, type YardDocument, type YardLine, type YardPlanting } from '#shared/schemas/yard-document'
 import type { Units } from '#shared/utils/units'
 import type { Point } from '#shared/utils/polygon'
-import { allIds, deleteElements, duplicateElements, findElement, layeredShapes, LOT_ID, newId, shiftZ, snapStep, translateElements, type Element } from '#shared/utils/yard-edits'
+import { allIds, deleteElements, duplicateElements, findElement, layeredShapes, LOT_ID, newId, nextPhase, setPhase, shiftZ, snapStep, translateElements, type Element } from '#shared/utils/yard-edits'
+import { phaseOf, type Phase } from '#shared/schemas/yard-document'
+import { PHASE_LABELS } from '#shared/utils/labels'
 import type { Score, Share } from '#shared/schemas/score'
 
 // the pure edits and geometry live in shared/utils/yard-edits.ts; re-exported for the editor's components
@@ -205,6 +207,19 @@ export const useEditorStore = defineStore('editor', () => {
     if (!ids.length) return
     applyChange('Nudge', (d) => translateElements(d, ids, dx, dy))
   }
+  /** Sets the phase of the given areas and plantings (the selection by default). */
+  function setPhaseOf(phase: Phase, ids: string[] = [...selection.value]) {
+    const targets = ids.filter((id) => { const el = findElement(doc.value, id); return el?.type === 'area' || el?.type === 'planting' })
+    if (!targets.length) return false
+    return applyChange(targets.length === 1 ? `Mark ${PHASE_LABELS[phase].toLowerCase()}` : `Mark ${targets.length} elements ${PHASE_LABELS[phase].toLowerCase()}`, (d) => setPhase(d, targets, phase))
+  }
+  /** One key steps the selection's phase on: there now → to plant → to remove → there now. */
+  function cyclePhaseSelected() {
+    const first = selectedElements.value.find((e) => e.type === 'area' || e.type === 'planting')
+    if (!first || !('item' in first)) return null
+    const next = nextPhase(phaseOf(first.item as { phase?: Phase }))
+    return setPhaseOf(next) ? next : null
+  }
   function moveSelectedZ(direction: 1 | -1) {
     const ids = selection.value.filter((id) => {
       const el = findElement(doc.value, id)
@@ -219,7 +234,7 @@ export const useEditorStore = defineStore('editor', () => {
     canEdit, canUndo, canRedo, undoLabel, redoLabel, units, selectedSet, selectedElements,
     load, applyChange, replaceDocument, undo, redo, select, clearSelection,
     addArea, addPlanting, addLine, setBoundary, updateElement, setPoints, deleteSelected, duplicateSelected,
-    nudgeSelected, moveSelectedZ,
+    nudgeSelected, moveSelectedZ, setPhaseOf, cyclePhaseSelected,
   }
 })
 
@@ -265,7 +280,13 @@ export const useEditorViewStore = defineStore('editor-view', () => {
   const pins = shallowRef<VisitPin[]>([])
   // while elements are dragged: where they are now (not yet in the document), so the score can follow
   const dragPreview = shallowRef<Map<string, { x?: number; y?: number; spread?: number; points?: Point[] }> | null>(null)
-  return { tool, shape, snapping, plantChoice, score, scoreState, statusById, message, say, pins, dragPreview }
+  // which phases the plan shows: the yard now, with the plan, or both at once
+  const phaseShown = ref<'now' | 'planned' | 'both'>('both')
+  // years after planting the plan is seen at (null: at maturity, so nothing is hidden)
+  const years = ref<number | null>(null)
+  // bumps when work is marked done, so the history chart reloads
+  const historyRevision = ref(0)
+  return { historyRevision, tool, shape, snapping, plantChoice, score, scoreState, statusById, message, say, pins, dragPreview, phaseShown, years }
 })
 
 export interface VisitPin { id: number; x: number; y: number; comment: string }

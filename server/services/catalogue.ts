@@ -108,6 +108,7 @@ export async function loadCatalogueBase(tx: Tx, file: CatalogueFile) {
  */
 export const DEMO_REGIONAL_LIST: OverrideRow[] = [
   { scientificName: 'Berberis thunbergii', region: 'US-OH', field: 'status', value: 'invasive', source: 'coordinator (demo regional list)' },
+  { scientificName: 'Lonicera maackii', region: 'US-OH', field: 'status', value: 'invasive', source: 'coordinator (demo regional list)' },
 ]
 
 /** Start-up: load this build's catalogue once across instances (and the demo list in demo mode), then warm this instance's copy. */
@@ -240,7 +241,7 @@ export function factsOf(s: CachedSpecies, status: RegionStatus): SpeciesFacts {
   const d = s.data
   return {
     scientificName: d.scientificName, commonName: d.commonName, layer: d.layer, status,
-    spread: d.spread, height: d.height, spacing: d.spacing, lawn: d.lawn,
+    spread: d.spread, height: d.height, spacing: d.spacing, lawn: d.lawn, growthRate: d.growthRate ?? null,
     estimated: FACT_ESTIMATES.filter((f) => d.estimated.includes(f)), toxic: d.toxic,
   }
 }

@@ -23,6 +23,9 @@ const binColumn = (drive: DriveRow) => (drive.certifies === 'count' ? pledges.co
  * The summary: the consenting totals, the histogram (the database keeps each pledge's bin, so it is an index-only
  * count) and the number withheld, three aggregate queries run side by side over covering indexes.
  */
+// a pledge's share with the plan (its share columns are the yard as it is now)
+const plannedColumn = (kind: 'count' | 'area' | 'volume') => (kind === 'count' ? pledges.plannedCountShare : kind === 'area' ? pledges.plannedAreaShare : pledges.plannedVolumeShare)
+
 export async function driveSummary(drive: DriveRow) {
   const db = useDb()
   const col = shareColumn(drive.certifies)
@@ -33,6 +36,7 @@ export async function driveSummary(drive: DriveRow) {
       reached: sql<number>`SUM(${pledges.status} IN ('reached', 'verified'))`,
       verified: sql<number>`SUM(${pledges.status} = 'verified')`,
       meanShare: sql<number>`AVG(${col})`,
+      meanPlannedShare: sql<number>`AVG(${plannedColumn(drive.certifies)})`,
       nativeCoverAdded: sql<number>`SUM(${pledges.areaNative} - ${pledges.baseAreaNative})`,
       lawnConverted: sql<number>`SUM(${pledges.baseLawnArea} - ${pledges.lawnArea})`,
     }).from(pledges).where(consenting(drive)),
@@ -52,6 +56,7 @@ export async function driveSummary(drive: DriveRow) {
     verified: num(totals?.verified),
     withheld: num(withheld?.n),
     meanShare: totals?.meanShare == null ? null : Number(totals.meanShare),
+    meanPlannedShare: totals?.meanPlannedShare == null ? null : Number(totals.meanPlannedShare),
     nativeCoverAdded: Math.round(num(totals?.nativeCoverAdded) * 10) / 10,
     lawnConverted: Math.round(num(totals?.lawnConverted) * 10) / 10,
     histogram,
@@ -162,7 +167,7 @@ function tableFilter(drive: DriveRow, q: PledgesQuery): SQL | undefined {
 function tableColumns(drive: DriveRow) {
   return {
     reference: pledges.id, neighbourhood: pledges.neighbourhood, status: pledges.status, pledgedOn: pledges.pledgedOn,
-    share: shareColumn(drive.certifies), baseShare: pledges.baseShare,
+    share: shareColumn(drive.certifies), plannedShare: plannedColumn(drive.certifies), baseShare: pledges.baseShare,
     countShare: pledges.countShare, areaShare: pledges.areaShare, volumeShare: pledges.volumeShare,
     nativeCoverAdded: sql<number>`${pledges.areaNative} - ${pledges.baseAreaNative}`,
     lawnConverted: sql<number>`${pledges.baseLawnArea} - ${pledges.lawnArea}`,

@@ -17,7 +17,11 @@ export const DEMO_ACCOUNTS = [
 
 const rect = (x: number, y: number, w: number, h: number): [number, number][] => [[x, y], [x + w, y], [x + w, y + h], [x, y + h]]
 
-/** A suburban lot, 18 m × 36 m: house, drive, lawn everywhere else, one bed with a start on natives. */
+/**
+ * A suburban lot, 18 m × 36 m, before and after: there now are the house, drive, lawn everywhere else, a white oak,
+ * an introduced maple by the street and invasive shrubs; the barberry and honeysuckle are to remove; beds and
+ * drifts of natives, and native shrubs in the invasives' place, are to plant.
+ */
 export function demoFrontYard(): YardDocument {
   return {
     format: YARD_FORMAT,
@@ -32,24 +36,33 @@ export function demoFrontYard(): YardDocument {
       { id: 'drive', kind: 'paving', z: 9, points: rect(14, 14, 4, 22), label: 'Drive' },
       { id: 'walk', kind: 'paving', z: 9, points: rect(8, 21, 1.5, 15), label: 'Front walk' },
       { id: 'bed-south', kind: 'bed', z: 5, points: rect(1, 23, 6, 4), sun: 'full', soil: 'clay', moisture: 'medium', label: 'Front bed' },
-      { id: 'bed-back', kind: 'bed', z: 5, points: rect(1, 1, 16, 3), sun: 'part', soil: 'loam', moisture: 'medium', label: 'Back fence bed' },
+      { id: 'bed-back', kind: 'bed', z: 5, points: rect(1, 1, 16, 3), sun: 'part', soil: 'loam', moisture: 'medium', label: 'Back fence bed', phase: 'planned' },
+      { id: 'bed-street', kind: 'bed', z: 5, points: rect(1, 30, 7, 5), sun: 'full', soil: 'clay', moisture: 'dry', label: 'Street-side meadow', phase: 'planned' },
     ],
     plantings: [
       { id: 'lawn', species: 'Poa pratensis', points: rect(0, 0, 18, 36), z: 0, spacing: null, height: 0.08, label: 'Lawn' },
       { id: 'oak', species: 'Quercus alba', x: 4, y: 6, count: 1, spread: 9, height: 15 },
       { id: 'maple', species: 'Acer platanoides', x: 12, y: 30, count: 1, spread: 8, height: 12, label: 'Street-side maple' },
-      { id: 'barberry', species: 'Berberis thunbergii', x: 11, y: 22.5, count: 3, spread: 1.2, height: 1.2 },
+      { id: 'barberry', species: 'Berberis thunbergii', x: 11, y: 22.5, count: 3, spread: 1.2, height: 1.2, phase: 'removing', label: 'Barberry by the steps' },
+      { id: 'honeysuckle', species: 'Lonicera maackii', x: 15.5, y: 8, count: 2, spread: 3, height: 4, phase: 'removing', label: 'Honeysuckle thicket' },
       { id: 'milkweed', species: 'Asclepias tuberosa', x: 2.5, y: 25, count: 5, spread: 0.45, height: 0.6 },
       { id: 'coneflower', species: 'Echinacea purpurea', cultivar: 'Sunset Lantern', x: 5, y: 25, count: 3, spread: 0.5, height: 0.9 },
-      { id: 'sedge', species: 'Carex pensylvanica', points: rect(2, 1.5, 8, 2), z: 6, spacing: 0.3, height: 0.2 },
-      { id: 'aster-drift', species: 'Symphyotrichum novae-angliae', points: rect(11, 1.5, 5, 2), z: 6, spacing: 0.6, height: 1.2, label: 'Aster drift' },
       { id: 'mystery', species: null, x: 15, y: 2.5, count: 1, spread: 1.5, height: 1.5, label: 'Shrub by the shed (unknown)' },
+      // the plan
+      { id: 'winterberry', species: 'Ilex verticillata', x: 11, y: 22.5, count: 3, spread: 1.5, height: 2, phase: 'planned', start: 'pot' },
+      { id: 'serviceberry', species: 'Amelanchier arborea', x: 15.5, y: 8, count: 1, spread: 5, height: 7, phase: 'planned', start: 'bare-root' },
+      { id: 'sedge', species: 'Carex pensylvanica', points: rect(1, 1, 9, 3), z: 6, spacing: 0.3, height: 0.2, phase: 'planned', start: 'plug' },
+      { id: 'aster-drift', species: 'Symphyotrichum novae-angliae', points: rect(11, 1.5, 5, 2), z: 6, spacing: 0.6, height: 1.2, label: 'Aster drift', phase: 'planned', start: 'seed' },
+      // a young white oak from an acorn, for shade in the back yard in time
+      { id: 'oak-young', species: 'Quercus alba', x: 11, y: 5.5, count: 1, spread: 9, height: 15, phase: 'planned', start: 'seed', label: 'Young white oak' },
+      { id: 'bluestem', species: 'Schizachyrium scoparium', points: rect(1, 30, 7, 5), z: 6, spacing: 0.45, height: 0.9, phase: 'planned', start: 'plug' },
+      { id: 'front-drift', species: 'Rudbeckia hirta', points: rect(1, 23, 6, 4), z: 5, spacing: 0.45, height: 0.8, phase: 'planned', start: 'plug' },
     ],
     lines: [{ id: 'wires', kind: 'overhead', points: [[0, 35], [18, 35]], label: 'Service wires' }],
   }
 }
 
-/** A small back garden already well on its way. */
+/** A small back garden already well on its way: a meadow there now, and a little more to plant. */
 export function demoBackGarden(): YardDocument {
   return {
     format: YARD_FORMAT,
@@ -63,15 +76,16 @@ export function demoBackGarden(): YardDocument {
       { id: 'house', kind: 'building', z: 10, points: rect(2, 14, 11, 6), label: 'House' },
       { id: 'patio', kind: 'paving', z: 9, points: rect(4, 11, 6, 3), label: 'Patio' },
       { id: 'meadow-bed', kind: 'bed', z: 5, points: rect(0.5, 0.5, 14, 6), sun: 'full', soil: 'loam', moisture: 'dry', label: 'Meadow bed' },
-      { id: 'rain', kind: 'bed', z: 5, points: rect(11, 8, 3.5, 3), sun: 'full', soil: 'clay', moisture: 'wet', label: 'Rain garden' },
+      { id: 'rain', kind: 'bed', z: 5, points: rect(11, 8, 3.5, 3), sun: 'full', soil: 'clay', moisture: 'wet', label: 'Rain garden', phase: 'planned' },
     ],
     plantings: [
       { id: 'lawn', species: 'Poa pratensis', points: rect(0, 0, 15, 14), z: 0, spacing: null, height: 0.08, label: 'Lawn' },
       { id: 'meadow', species: 'Schizachyrium scoparium', points: rect(0.5, 0.5, 14, 6), z: 6, spacing: 0.45, height: 0.9 },
       { id: 'asters', species: 'Symphyotrichum novae-angliae', x: 3, y: 3, count: 7, spread: 0.6, height: 1.2 },
       { id: 'serviceberry', species: 'Amelanchier arborea', x: 1.5, y: 9, count: 1, spread: 5, height: 7 },
-      { id: 'swamp-milkweed', species: 'Asclepias incarnata', x: 12.5, y: 9.5, count: 4, spread: 0.6, height: 1.2 },
-      { id: 'hosta', species: 'Hosta plantaginea', x: 8, y: 12.5, count: 2, spread: 0.8, height: 0.5 },
+      { id: 'hosta', species: 'Hosta plantaginea', x: 8, y: 12.5, count: 2, spread: 0.8, height: 0.5, phase: 'removing' },
+      { id: 'swamp-milkweed', species: 'Asclepias incarnata', x: 12.5, y: 9.5, count: 4, spread: 0.6, height: 1.2, phase: 'planned', start: 'plug' },
+      { id: 'wild-ginger', species: 'Asarum canadense', x: 8, y: 12.5, count: 6, spread: 0.3, height: 0.2, phase: 'planned', start: 'plug' },
     ],
     lines: [],
   }
@@ -149,9 +163,12 @@ export async function loadDemoDrive(tx: Tx) {
       volumeNative: s.shares.volume.native, volumeTotal: s.shares.volume.total, volumeShare: s.shares.volume.share ?? 0, lawnArea: s.lawnArea,
     })
     const before = cols(await yardShares(e.before, e.region))
-    const after = cols(await yardShares(e.after, e.region))
+    const afterShares = await yardShares(e.after, e.region)
+    const after = cols(afterShares)
+    const { planned } = afterShares
     await tx.insert(pledges).values({
       driveId, yardId: e.yardId, userId: e.userId, neighbourhood: e.neighbourhood, consent: true, pledgedOn: day(-e.daysAgo), ...after,
+      plannedCountShare: planned.count.share ?? 0, plannedAreaShare: planned.area.share ?? 0, plannedVolumeShare: planned.volume.share ?? 0,
       status: after.areaShare >= 0.7 ? 'reached' : 'pledged', baseAreaNative: before.areaNative, baseLawnArea: before.lawnArea, baseShare: before.areaShare,
     })
     await tx.insert(shareSnapshots).values({ yardId: e.yardId, day: day(-e.daysAgo), ...before })

@@ -5,7 +5,7 @@ import { drives, pledges, shareSnapshots, driveMailings, driveMailDeliveries, dr
 import type { YardDocument } from '#shared/schemas/yard-document'
 import type { ShareSet } from '#shared/schemas/advice'
 import type { AccountRow, YardRow } from '../database/schema'
-import { GOAL_TOLERANCE, measureYard, meetsGoal, sharesOf, tallyYard } from '#shared/utils/score'
+import { GOAL_TOLERANCE, measureYard, meetsGoal, phaseView, sharesOf, tallyYard } from '#shared/utils/score'
 import { yardFacts } from './scoring'
 import { enqueueJobs, jobProgress } from './jobs'
 
@@ -21,12 +21,17 @@ export async function bumpDriveVersion(driveId: number, db: DbOrTx = useDb()) {
   await db.insert(driveSummaries).values({ driveId, version: 1 }).onDuplicateKeyUpdate({ set: { version: sql`${driveSummaries.version} + 1` } })
 }
 
-/** The shares of a document as the score engine gives them, plus the visible lawn area (m²). */
-export async function yardShares(doc: YardDocument, region: string): Promise<{ shares: ShareSet; lawnArea: number }> {
-  const measured = measureYard(doc, await yardFacts(doc, region), region)
+/**
+ * The shares of a document as the score engine gives them: the yard as it is now (what a pledge is judged on,
+ * with its visible lawn area in m²) and with the plan.
+ */
+export async function yardShares(doc: YardDocument, region: string): Promise<{ shares: ShareSet; planned: ShareSet; lawnArea: number }> {
+  const facts = await yardFacts(doc, region)
+  const measured = measureYard(phaseView(doc, 'now'), facts, region)
   const lawnArea = measured.plantings.filter((p) => p.lawn).reduce((s, p) => s + p.area, 0)
   const tally = tallyYard(measured.plantings)
-  return { shares: sharesOf(tally.native, tally.total), lawnArea }
+  const plannedTally = tallyYard(measureYard(phaseView(doc, 'planned'), facts, region).plantings)
+  return { shares: sharesOf(tally.native, tally.total), planned: sharesOf(plannedTally.native, plannedTally.total), lawnArea }
 }
 
 /** The share columns kept on a pledge and a snapshot (a share with nothing to share is stored as 0). */
@@ -100,12 +105,17 @@ export async function listDrives() {
   return rows.map((d) => ({ ...driveView(d), running: running?.id === d.id }))
 }
 
+const plannedColumns = ({ planned }: { planned: ShareSet }) => ({
+  plannedCountShare: planned.count.share ?? 0, plannedAreaShare: planned.area.share ?? 0, plannedVolumeShare: planned.volume.share ?? 0,
+})
+
 function pledgeView(p: PledgeRow, drive: DriveRow) {
   const share = drive.certifies === 'count' ? p.countShare : drive.certifies === 'area' ? p.areaShare : p.volumeShare
   return {
     id: p.id, driveId: p.driveId, yardId: p.yardId, neighbourhood: p.neighbourhood, consent: p.consent, status: p.status,
     pledgedOn: p.pledgedOn, share, baseShare: p.baseShare, verifiedAt: p.verifiedAt,
     shares: { count: p.countShare, area: p.areaShare, volume: p.volumeShare },
+    planned: { count: p.plannedCountShare, area: p.plannedAreaShare, volume: p.plannedVolumeShare },
   }
 }
 
@@ -121,7 +131,9 @@ export async function yardPledgeState(yardId: number) {
 export async function pledgeYard(owner: AccountRow, yard: YardRow, input: { neighbourhood: string; consent: boolean }) {
   const drive = await runningDrive()
   if (!drive) throw createError({ status: 409, message: 'No pledge drive is running just now' })
-  const cols = shareColumns(await yardShares(yard.document, yard.region))
+  const measured = await yardShares(yard.document, yard.region)
+  const cols = shareColumns(measured)
+  const planned = plannedColumns(measured)
   // the pledge, the day's snapshot and the drive's version change together; the pledge row is locked while read.
   // Two first pledges at once: the unique key (yard, drive) lets one insert land; the other updates (or, chosen
   // as a deadlock victim on the gap lock, runs again and finds the row)
@@ -130,11 +142,11 @@ export async function pledgeYard(owner: AccountRow, yard: YardRow, input: { neig
     const status = statusFor(drive, existing?.status ?? null, cols)
     let created = false
     if (existing) {
-      await tx.update(pledges).set({ ...input, ...cols, status }).where(eq(pledges.id, existing.id))
+      await tx.update(pledges).set({ ...input, ...cols, ...planned, status }).where(eq(pledges.id, existing.id))
     } else {
       const base = drive.certifies === 'count' ? cols.countShare : drive.certifies === 'area' ? cols.areaShare : cols.volumeShare
       created = await tx.insert(pledges).values({
-        driveId: drive.id, yardId: yard.id, userId: owner.id, ...input, pledgedOn: today(), ...cols, status,
+        driveId: drive.id, yardId: yard.id, userId: owner.id, ...input, pledgedOn: today(), ...cols, ...planned, status,
         baseAreaNative: cols.areaNative, baseLawnArea: cols.lawnArea, baseShare: base, reachedAt: status === 'reached' ? new Date() : null,
       }).then(() => true, (e) => { if (!isDuplicateKey(e)) throw e; return false })
       if (!created) await tx.update(pledges).set(input).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id)))
@@ -165,20 +177,24 @@ async function upsertSnapshot(yardId: number, cols: ReturnType<typeof shareColum
  * After a save: when the yard is pledged to a drive that has not ended, refresh its pledges' shares and status
  * and the day's snapshot. A yard that is not pledged costs one indexed lookup.
  */
-export async function recordPledgedShares(yard: YardRow) {
-  const db = useDb()
+export async function recordPledgedShares(yard: YardRow, day = today(), outer?: DbOrTx) {
+  const db = outer ?? useDb()
   const rows = await db.select({ pledge: pledges, drive: drives }).from(pledges).innerJoin(drives, eq(drives.id, pledges.driveId))
     .where(and(eq(pledges.yardId, yard.id), gte(drives.endsOn, today())))
   if (!rows.length) return
-  const cols = shareColumns(await yardShares(yard.document, yard.region))
-  await db.transaction(async (tx) => {
+  const measured = await yardShares(yard.document, yard.region)
+  const cols = shareColumns(measured)
+  const write = async (tx: DbOrTx) => {
     for (const { pledge, drive } of rows) {
       const status = statusFor(drive, pledge.status, cols)
-      await tx.update(pledges).set({ ...cols, status, reachedAt: status === 'reached' && !pledge.reachedAt ? new Date() : pledge.reachedAt }).where(eq(pledges.id, pledge.id))
+      await tx.update(pledges).set({ ...cols, ...plannedColumns(measured), status, reachedAt: status === 'reached' && !pledge.reachedAt ? new Date() : pledge.reachedAt }).where(eq(pledges.id, pledge.id))
       await bumpDriveVersion(drive.id, tx)
     }
-    await upsertSnapshot(yard.id, cols, today(), tx)
-  })
+    // work marked done on an earlier day is recorded on that day, so progress over time shows when it was done
+    await upsertSnapshot(yard.id, cols, day, tx)
+  }
+  if (outer) await write(outer)
+  else await useDb().transaction(write)
 }
 
 /** An advisor on a visit confirms the running drive's pledge of a yard that has reached the goal. */
@@ -212,7 +228,7 @@ export async function certificate(yard: YardRow) {
   const view = pledgeView(row.pledge, row.drive)
   return {
     yardName: yard.name, household: owner?.name ?? '', drive: driveView(row.drive), organisation: org?.name ?? '',
-    share: view.share, shares: view.shares, verifiedAt: row.pledge.verifiedAt, verifiedBy: (verifier as { name: string } | undefined)?.name ?? null,
+    share: view.share, shares: view.shares, planned: view.planned[row.drive.certifies], verifiedAt: row.pledge.verifiedAt, verifiedBy: (verifier as { name: string } | undefined)?.name ?? null,
   }
 }
 

@@ -32,7 +32,8 @@ export function changedDocument(doc: YardDocument, change: RecommendationChange,
 export async function predict(yard: YardRow, change: RecommendationChange): Promise<PredictedShares> {
   const after = changedDocument(yard.document, change, 'recommended')
   const [b, a] = await Promise.all([yardShares(yard.document, yard.region), yardShares(after, yard.region)])
-  return { before: b.shares, after: a.shares }
+  // an accepted recommendation is plan items: it changes the plan, not the yard as it is now
+  return { before: b.planned, after: a.planned }
 }
 
 export async function previewRecommendation(user: AccountRow, visitId: number, change: RecommendationChange) {

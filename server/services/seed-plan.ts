@@ -6,12 +6,14 @@ import { seedPlans, seedPrices } from '../database/schema'
 import type { YardRow } from '../database/schema'
 import { getSpeciesDetails } from './catalogue'
 import {
-  computeSeedPlan, plantsBySpecies, speciesKey, raisedFromSeed, DEFAULT_MARGIN,
+  computeSeedPlan, speciesKey, raisedFromSeed, DEFAULT_MARGIN,
   type SeedPlan, type SeedPlanSettings, type SpeciesSetting, type SeedTask,
 } from '#shared/utils/seed-plan'
 import { frostDates, isoDate, parseIsoDate, addDays } from '#shared/utils/seed-season'
 import type { UpdateSeedPlanBody, SeedPriceBody } from '#shared/schemas/seed'
 import type { SpeciesDetails } from '#shared/types/species'
+import { plantsToPlant } from '#shared/utils/score'
+import { yardFacts } from './scoring'
 
 export interface StoredSettings extends SeedPlanSettings { version: number }
 
@@ -31,7 +33,9 @@ export async function seedPlanFor(yard: YardRow, today = isoDate(new Date())): P
   const detailsByKey = new Map<string, SpeciesDetails>()
   for (const [name, d] of details) detailsByKey.set(speciesKey(name), d)
 
-  const counts = plantsBySpecies(plantings, (key) => detailsByKey.get(key)?.spacing ?? null)
+  // plantings to plant only (what stands there now is not raised), counted over the area the score counts
+  const doc = yard.document ?? { plantings: [] }
+  const counts = plantsToPlant({ ...doc, areas: doc.areas ?? [], plantings } as never, await yardFacts(doc as never, yard.region), yard.region)
   const species = [...counts].filter(([key]) => raisedFromSeed(detailsByKey.get(key)?.status))
     .map(([key, c]) => ({ key, name: c.name, plants: c.plants, cultivars: c.cultivars, facts: detailsByKey.get(key) ?? null }))
 

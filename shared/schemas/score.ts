@@ -39,7 +39,13 @@ export const moveSchema = z.strictObject({
 
 export const scoreSchema = z.strictObject({
   goal: z.number(),
+  /** the plan's shares (there now + to plant), as `planned` */
   shares: sharesSchema,
+  /** the yard as it is now: there now + to remove */
+  now: sharesSchema,
+  /** with the plan: there now + to plant (at `years` after planting; null: at maturity) */
+  planned: sharesSchema,
+  years: z.number().nullable(),
   byStatus: z.strictObject({
     native: totalsSchema, introduced: totalsSchema, invasive: totalsSchema, nativeAndIntroduced: totalsSchema, unknown: totalsSchema,
   }),

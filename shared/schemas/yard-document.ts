@@ -1,12 +1,15 @@
 import { z } from 'zod'
 import { firstSelfIntersection, type Point } from '../utils/polygon'
-import { regionCode, hardinessZone, monthDay } from './common'
+import { regionCode, hardinessZone, monthDay, isoDate } from './common'
 import { frostOrderOk } from '../utils/seed-season'
 
-// The yard document: our own JSON format (format tag "wildward.yard/1"), stored per yard and used for export
-// and import. All lengths in metres, x to the right and y down, origin at the lot's top-left.
+// The yard document: our own JSON format (format tag "wildward.yard/2"), stored per yard and used for export
+// and import. All lengths in metres, x to the right and y down, origin at the lot's top-left. Version 2 adds a
+// phase to areas and plantings (absent: there now) and a planting's size at planting; a "/1" document reads
+// as everything there now, and is written back as "/2".
 
-export const YARD_FORMAT = 'wildward.yard/1'
+export const YARD_FORMAT = 'wildward.yard/2'
+export const YARD_FORMATS = ['wildward.yard/1', YARD_FORMAT] as const
 export const MAX_PLANTINGS = 5000
 export const MAX_AREAS = 2000
 const MAX_VERTICES = 1000
@@ -27,6 +30,16 @@ const elementId = z.string().min(1).max(64)
 // outlines are checked for crossings once, in the document pass below (cheaper than a refinement per ring)
 const ring = z.array(point).min(3, 'A shape needs at least 3 points').max(MAX_VERTICES)
 
+/** There now (stays), to plant or build, to remove (there now, will go). Absent means there now. */
+export const PHASES = ['existing', 'planned', 'removing'] as const
+export type Phase = (typeof PHASES)[number]
+/** What a planting goes in as: its size then comes from this (shared/utils/score/growth.ts). */
+export const START_SIZES = ['seed', 'plug', 'pot', 'bare-root'] as const
+export type StartSize = (typeof START_SIZES)[number]
+const phase = z.enum(PHASES, { error: 'The phase is one of existing, planned or removing' })
+// the day work was marked done (planted or built)
+const doneOn = isoDate
+
 export const AREA_KINDS = ['building', 'paving', 'bed', 'water'] as const
 export const SUN = ['full', 'part', 'shade'] as const
 export const SOIL = ['sand', 'loam', 'clay'] as const
@@ -41,6 +54,8 @@ export const yardArea = z.object({
   soil: z.enum(SOIL).optional(),
   moisture: z.enum(MOISTURE).optional(),
   label: z.string().max(200).optional(),
+  phase: phase.optional(),
+  doneOn: doneOn.optional(),
 })
 
 export const yardPlanting = z.object({
@@ -58,6 +73,11 @@ export const yardPlanting = z.object({
   points: ring.optional(),
   spacing: z.number().positive().max(20).nullable().optional(),
   height: z.number().positive().max(120).optional(),
+  phase: phase.optional(),
+  // size at planting: a nursery size, or a spread typed in (metres; wins over the size)
+  start: z.enum(START_SIZES).optional(),
+  startSpread: z.number().positive().max(60).optional(),
+  doneOn: doneOn.optional(),
 })
 
 /** Why a planting is neither a point (x, y) nor an area (points), or null when it is one of them. */
@@ -93,7 +113,8 @@ export const frostDatesSchema = z.object({ lastSpring: monthDay.nullable().optio
     { path: ['firstFall'], message: 'The first fall frost comes after the last spring frost: check both dates' })
 
 const yardDocumentBase = z.object({
-  format: z.literal(YARD_FORMAT).default(YARD_FORMAT),
+  // both formats read; a document is always written back as the current one
+  format: z.enum(YARD_FORMATS, { error: `The format is ${YARD_FORMAT} (or wildward.yard/1)` }).default(YARD_FORMAT).transform(() => YARD_FORMAT),
   name: z.string().trim().max(120).optional(),
   region: regionCode.optional(),
   zone: hardinessZone.nullable().optional(),
@@ -192,7 +213,7 @@ function fastRing(v: unknown, min: number): Point[] | null {
 
 function fastPlanting(v: unknown): YardPlanting | null {
   if (!isPlain(v)) return null
-  const { id, species, cultivar, label, x, y, count, spread, z: zz, points, spacing, height } = v
+  const { id, species, cultivar, label, x, y, count, spread, z: zz, points, spacing, height, phase, start, startSpread, doneOn } = v
   if (typeof id !== 'string' || id.length < 1 || id.length > 64) return null
   const out: YardPlanting = { id, species: null }
   if (species === null) out.species = null
@@ -208,17 +229,25 @@ function fastPlanting(v: unknown): YardPlanting | null {
   if (points !== undefined) { const ring = fastRing(points, 3); if (ring) out.points = ring; else return null }
   if (spacing !== undefined) { if (spacing === null || isPos(spacing, 20)) out.spacing = spacing as number | null; else return null }
   if (height !== undefined) { if (isPos(height, 120)) out.height = height as number; else return null }
+  if (phase !== undefined) { if (PHASE_SET.has(phase)) out.phase = phase as Phase; else return null }
+  if (start !== undefined) { if (START_SET.has(start)) out.start = start as StartSize; else return null }
+  if (startSpread !== undefined) { if (isPos(startSpread, 60)) out.startSpread = startSpread as number; else return null }
+  if (doneOn !== undefined) { if (isDate(doneOn)) out.doneOn = doneOn; else return null }
   return out
 }
 
 const AREA_KIND_SET = new Set<unknown>(AREA_KINDS)
+const PHASE_SET = new Set<unknown>(PHASES)
+const START_SET = new Set<unknown>(START_SIZES)
+// the fast path's date check: the shape only, zod (on the slow path) judges the calendar
+const isDate = (v: unknown): v is string => typeof v === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(v) && doneOn.safeParse(v).success
 const SUN_SET = new Set<unknown>(SUN)
 const SOIL_SET = new Set<unknown>(SOIL)
 const MOISTURE_SET = new Set<unknown>(MOISTURE)
 
 function fastArea(v: unknown): YardArea | null {
   if (!isPlain(v)) return null
-  const { id, kind, z: zz, points, sun, soil, moisture, label } = v
+  const { id, kind, z: zz, points, sun, soil, moisture, label, phase, doneOn } = v
   if (typeof id !== 'string' || id.length < 1 || id.length > 64 || !AREA_KIND_SET.has(kind)) return null
   if (zz !== undefined && !isInt(zz, -1_000_000, 1_000_000)) return null
   const ring = fastRing(points, 3)
@@ -228,6 +257,8 @@ function fastArea(v: unknown): YardArea | null {
   if (soil !== undefined) { if (SOIL_SET.has(soil)) out.soil = soil as YardArea['soil']; else return null }
   if (moisture !== undefined) { if (MOISTURE_SET.has(moisture)) out.moisture = moisture as YardArea['moisture']; else return null }
   if (label !== undefined) { if (isStr(label, 200)) out.label = label; else return null }
+  if (phase !== undefined) { if (PHASE_SET.has(phase)) out.phase = phase as Phase; else return null }
+  if (doneOn !== undefined) { if (isDate(doneOn)) out.doneOn = doneOn; else return null }
   return out
 }
 
@@ -289,6 +320,9 @@ export type YardLine = z.infer<typeof yardLine>
 export function isAreaPlanting(p: YardPlanting): p is YardPlanting & { points: Point[] } {
   return Array.isArray(p.points)
 }
+
+/** An area's or planting's phase (absent: there now). */
+export const phaseOf = (el: { phase?: Phase }): Phase => el.phase ?? 'existing'
 
 export function emptyYardDocument(partial: Partial<YardDocument> = {}): YardDocument {
   return { format: YARD_FORMAT, units: 'ft', boundary: [], areas: [], plantings: [], lines: [], ...partial }

@@ -2,6 +2,10 @@
 export const LAYERS = ['tree', 'shrub', 'ground'] as const
 export type Layer = (typeof LAYERS)[number]
 
+/** How fast a species grows to its mature size (USDA PLANTS growth_rate). */
+export const GROWTH_RATES = ['slow', 'moderate', 'rapid'] as const
+export type GrowthRate = (typeof GROWTH_RATES)[number]
+
 /** A species' status in one region (state or province). */
 export const REGION_STATUSES = ['native', 'introduced', 'invasive', 'nativeAndIntroduced', 'absent'] as const
 export type RegionStatus = (typeof REGION_STATUSES)[number]
@@ -20,6 +24,8 @@ export interface SpeciesFacts {
   spacing: number | null
   /** true for turf grasses: an area of it is lawn */
   lawn: boolean
+  /** USDA PLANTS growth rate; null or absent when USDA gives none (the layer's middle value is then assumed) */
+  growthRate?: GrowthRate | null
   /** which of spread/height/spacing are defaults rather than data */
   estimated: Array<'spread' | 'height' | 'spacing'>
   toxic: boolean

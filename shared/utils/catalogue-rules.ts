@@ -2,7 +2,7 @@
 // read. The build script (scripts/build-catalogue.ts) only reads files and calls these; the server reuses the
 // zone and status helpers. Sources: USDA NRCS PLANTS Database (public domain), files described in
 // ../shared/data/usda-plants/README.md; the USDA 2023 Plant Hardiness Zone Map for the zone table.
-import type { Layer, Moisture, RegionStatus, Soil, Sun } from '../types/species'
+import type { GrowthRate, Layer, Moisture, RegionStatus, Soil, Sun } from '../types/species'
 import { REGIONS } from './regions'
 import { nameKey } from './species-name'
 import { seedlingsPerPotFor } from './seed-size'
@@ -373,6 +373,12 @@ export function feetToMetres(ft: number): number {
 // ---------------------------------------------------------------------------------------------------------
 // One catalogue entry, derived from a plants row, its characteristics row (if any) and its statuses.
 
+/** USDA PLANTS growth_rate ("Slow", "Moderate", "Rapid") in our words, or null. */
+export function growthRateFrom(v: string | undefined | null): GrowthRate | null {
+  const t = v?.trim().toLowerCase()
+  return t === 'slow' || t === 'moderate' || t === 'rapid' ? t : null
+}
+
 /** The committed catalogue's record of one taxon (short keys would save little after gzip; names are kept). */
 export interface CatalogueEntry {
   scientificName: string
@@ -389,6 +395,8 @@ export interface CatalogueEntry {
   spread: number
   spacing: number | null
   lawn: boolean
+  /** USDA PLANTS growth_rate (null when USDA gives none) */
+  growthRate?: GrowthRate | null
   sun: Sun[]
   moisture: Moisture[]
   soil: Soil[]
@@ -441,6 +449,8 @@ export function deriveFacts(plant: { scientificName: string; family: string | nu
   else { height = DEFAULT_HEIGHT_M[layer]; est('height', `typical ${layer} height`) }
 
   const lawn = isLawnSpecies(plant.scientificName)
+  const growthRate = growthRateFrom(c?.growth_rate)
+  if (growthRate) usda('growthRate')
   const spread = lawn ? 0.1 : defaultSpreadM(layer, height, c?.vegetative_spread_rate)
   est('spread', lawn ? 'turf grass' : `${layer} default from height`)
   const spacing = defaultSpacingM(spread, lawn)
@@ -482,7 +492,7 @@ export function deriveFacts(plant: { scientificName: string; family: string | nu
   if (wildlife.length) usda('wildlife')
 
   return {
-    layer, height, spread, spacing, lawn, sun, moisture, soil, bloomMonths,
+    layer, height, spread, spacing, lawn, growthRate, sun, moisture, soil, bloomMonths,
     flowerConspicuous: c ? boolOrNull(c.flower_conspicuous) : null,
     minTemperatureF, minZone, toxic: tox.toxic, toxicity: tox.toxicity,
     propagatedBySeed, coldStratification, coldMoistDays, seedNeedsLight, scarify: coat.scarify, hotWaterSoak: coat.hotWaterSoak,

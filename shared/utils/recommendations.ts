@@ -1,7 +1,8 @@
 // Applying an advisor's recommendation to a yard document: pure, so the server's prediction, the server-side
-// accept and the editor's undoable edit all make exactly the same change.
+// accept and the editor's undoable edit all make exactly the same change. An accepted recommendation becomes
+// plan items: what it adds is *to plant*, and a planting it replaces that stands there now is *to remove*.
 import type { YardDocument, YardPlanting } from '../schemas/yard-document'
-import { isAreaPlanting } from '../schemas/yard-document'
+import { isAreaPlanting, phaseOf } from '../schemas/yard-document'
 import type { RecommendationChange } from '../schemas/advice'
 import { centroid, type Ring } from './polygon'
 
@@ -24,12 +25,18 @@ export function applyRecommendation(doc: YardDocument, change: RecommendationCha
     const i = next.plantings.findIndex((p) => p.id === change.plantingId)
     if (i < 0) throw new RecommendationError('That planting is no longer in the plan', 'change.plantingId')
     const old = next.plantings[i]!
-    const replaced: YardPlanting = { ...old, species: change.species, cultivar: change.cultivar ?? null }
+    const replaced: YardPlanting = { ...old, species: change.species, cultivar: change.cultivar ?? null, phase: 'planned' }
     if (change.height !== undefined) replaced.height = change.height
     if (change.spread !== undefined && !isAreaPlanting(old)) replaced.spread = change.spread
-    // the old label named the old plant
+    // the old label named the old plant; the new one goes in at a nursery size, not the old one's
     delete replaced.label
-    next.plantings[i] = replaced
+    delete replaced.doneOn
+    // a planting still only planned is changed in place; one there now stays, to remove, with its successor beside it
+    if (phaseOf(old) === 'planned') next.plantings[i] = replaced
+    else {
+      next.plantings[i] = { ...old, phase: 'removing' }
+      next.plantings.splice(i + 1, 0, { ...replaced, id: freshId(next, newId) })
+    }
     return next
   }
   if (change.kind === 'add') {
@@ -38,13 +45,13 @@ export function applyRecommendation(doc: YardDocument, change: RecommendationCha
     const [cx, cy] = change.x !== undefined && change.y !== undefined ? [change.x, change.y] : centroid(bed.points as Ring)
     next.plantings.push({
       id: freshId(next, newId), species: change.species, cultivar: change.cultivar ?? null,
-      x: Math.round(cx * 1000) / 1000, y: Math.round(cy * 1000) / 1000, count: change.count, spread: change.spread, height: change.height,
+      x: Math.round(cx * 1000) / 1000, y: Math.round(cy * 1000) / 1000, count: change.count, spread: change.spread, height: change.height, phase: 'planned',
     })
     return next
   }
   // a drift drawn above every other area planting, so the lawn under it stops counting
   const top = Math.max(0, ...next.plantings.filter(isAreaPlanting).map((p) => p.z ?? 0))
-  next.plantings.push({ id: freshId(next, newId), species: change.species, cultivar: null, points: change.points, z: top + 1, spacing: change.spacing, height: change.height })
+  next.plantings.push({ id: freshId(next, newId), species: change.species, cultivar: null, points: change.points, z: top + 1, spacing: change.spacing, height: change.height, phase: 'planned' })
   return next
 }
 

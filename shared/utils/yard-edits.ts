@@ -1,7 +1,7 @@
 // The yard editor's pure document edits and geometry: snapping, ids, finding, moving, copying, deleting and
 // layering elements, hit-testing and bounds. The editor store (app/stores/editor.ts) applies them through its
 // one undoable change; tests and other features can call them on any document.
-import { isAreaPlanting, type YardArea, type YardDocument, type YardLine, type YardPlanting } from '../schemas/yard-document'
+import { isAreaPlanting, phaseOf, PHASES, type Phase, type YardArea, type YardDocument, type YardLine, type YardPlanting } from '../schemas/yard-document'
 import { METRES_PER_FOOT, type Units } from './units'
 import { pointInRing, ringArea, type Point } from './polygon'
 import { boxOf, distanceToSegment, type Box } from './geometry'
@@ -30,6 +30,46 @@ export function snapValue(v: number, step: number): number {
 
 export function snapPoint(p: Point, step: number): Point {
   return [snapValue(p[0], step), snapValue(p[1], step)]
+}
+
+/** Sets the phase of areas and plantings (lines and the lot have none); "there now" is stored as no phase. */
+export function setPhase(doc: YardDocument, ids: Iterable<string>, phase: Phase): boolean {
+  const want = new Set(ids)
+  let changed = false
+  for (const el of [...doc.areas, ...doc.plantings]) {
+    if (!want.has(el.id) || phaseOf(el) === phase) continue
+    if (phase === 'existing') delete el.phase
+    else el.phase = phase
+    delete el.doneOn
+    changed = true
+  }
+  return changed
+}
+
+/** The phase after `phase` in the order there now → to plant → to remove → there now (one key steps through). */
+export const nextPhase = (phase: Phase): Phase => PHASES[(PHASES.indexOf(phase) + 1) % PHASES.length]!
+
+/** Why work cannot be marked done on one of the ids (its index in the list, for the field name). */
+export class WorkError extends Error {
+  constructor(readonly index: number, message: string) { super(message) }
+}
+
+/**
+ * Work marked done, in place: planted turns what is to plant into what is there now (with the date), removed
+ * drops what was to remove. Throws WorkError naming the first id that cannot take it (then nothing is changed).
+ */
+export function markWorkDone(doc: YardDocument, work: { action: 'planted' | 'removed'; ids: string[]; date: string }): void {
+  const els = work.ids.map((id, i) => {
+    const el = doc.plantings.find((p) => p.id === id) ?? doc.areas.find((a) => a.id === id)
+    if (!el) throw new WorkError(i, `There is no planting or area "${id}" in the plan`)
+    const phase = phaseOf(el)
+    if (work.action === 'planted' && phase === 'removing') throw new WorkError(i, `"${id}" is to remove: it cannot be marked planted`)
+    if (work.action === 'planted' && phase === 'existing') throw new WorkError(i, `"${id}" is there already: only something to plant can be marked planted`)
+    if (work.action === 'removed' && phase !== 'removing') throw new WorkError(i, `"${id}" is not marked to remove: mark it to remove first`)
+    return el
+  })
+  if (work.action === 'planted') for (const el of els) { delete el.phase; el.doneOn = work.date }
+  else deleteElements(doc, work.ids)
 }
 
 /** Plants in a drift at its on-centre spacing (triangular layout; `plantsNeeded`, as the score counts them). */

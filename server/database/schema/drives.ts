@@ -50,6 +50,10 @@ export const pledges = mysqlTable('pledges', {
   status: mysqlEnum('status', PLEDGE_STATUSES).notNull().default('pledged'),
   pledgedOn: date('pledged_on', { mode: 'string' }).notNull(),
   ...shareColumns(''),
+  // the shares with the plan (the columns above are the yard as it is now, which the status is judged on)
+  plannedCountShare: double('planned_count_share').notNull().default(0),
+  plannedAreaShare: double('planned_area_share').notNull().default(0),
+  plannedVolumeShare: double('planned_volume_share').notNull().default(0),
   // the histogram bin (tenths, a share of 1 in the last) of each share, kept by the database for an index-only count
   countBin: tinyint('count_bin').generatedAlwaysAs(sql`LEAST(FLOOR(count_share * 10), 9)`, { mode: 'stored' }),
   areaBin: tinyint('area_bin').generatedAlwaysAs(sql`LEAST(FLOOR(area_share * 10), 9)`, { mode: 'stored' }),

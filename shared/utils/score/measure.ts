@@ -1,6 +1,6 @@
 // Measuring a yard: each planting's status, layer and footprint (clipped to the lot; the ground layer cut by
 // whatever is drawn above it). Pure: the species facts come in as a map keyed by `factsKey`.
-import { isAreaPlanting, type YardDocument, type YardPlanting } from '../../schemas/yard-document'
+import { isAreaPlanting, phaseOf, type YardDocument, type YardPlanting } from '../../schemas/yard-document'
 import type { Layer, PlantingStatus, SpeciesFacts } from '../../types/species'
 import type { ScoreWarning } from '../../schemas/score'
 import { areaInLot, circleAreaInLot, shapeOf, visibleArea, type Cutter, type Shape } from '../geometry'
@@ -8,6 +8,7 @@ import { pointInRing, type Ring } from '../polygon'
 import { plantsNeeded } from '../plant-count'
 import { regionName } from '../regions'
 import { sameFacts, type ScoreMemo, type Remembered } from './memo'
+import { grownSize } from './growth'
 
 /**
  * Sizes assumed when neither the planting nor the catalogue gives one, and for plants a move adds
@@ -107,8 +108,9 @@ export function lotShape(doc: YardDocument, memo?: ScoreMemo): Shape | null {
 }
 
 // everything of a planting its measure depends on, as one string (the editor edits plantings in place)
-function plantingKey(p: YardPlanting): string {
-  const base = `${p.id}\u0000${p.species ?? ''}\u0000${p.cultivar ?? ''}\u0000${p.label ?? ''}\u0000${p.height}`
+function plantingKey(p: YardPlanting, years: number | null): string {
+  const grows = phaseOf(p) === 'planned' && years !== null ? `${years}\u0000${p.start}\u0000${p.startSpread}` : ''
+  const base = `${p.id}\u0000${p.species ?? ''}\u0000${p.cultivar ?? ''}\u0000${p.label ?? ''}\u0000${p.height}\u0000${grows}`
   return isAreaPlanting(p) ? `${base}\u0000${p.spacing}\u0000${p.z}\u0000${ringKey(p.points as Ring)}` : `${base}\u0000${p.x}\u0000${p.y}\u0000${p.spread}\u0000${p.count}`
 }
 
@@ -135,7 +137,7 @@ function canonicalFacts(facts: Map<string, SpeciesFacts>, memo: ScoreMemo): Map<
  * lot, region and — for the ground layer — shapes above are unchanged since the last call keeps its measure:
  * exactly what a fresh measurement gives.
  */
-export function measureYard(doc: YardDocument, factsArg: Map<string, SpeciesFacts>, regionArg?: string | null, memo?: ScoreMemo): MeasuredYard {
+export function measureYard(doc: YardDocument, factsArg: Map<string, SpeciesFacts>, regionArg?: string | null, memo?: ScoreMemo, years: number | null = null): MeasuredYard {
   const region = regionArg ?? doc.region ?? null
   const head: ScoreWarning[] = []
   if (!region) head.push({ id: 'region', message: 'The yard has no state or province, so no plant can be counted as native yet' })
@@ -162,7 +164,7 @@ export function measureYard(doc: YardDocument, factsArg: Map<string, SpeciesFact
   const plantings = doc.plantings.map((p, index): PlantingMeasure => {
     const f = factsOf[index]
     const above = cutters.get(index)
-    const key = memo ? plantingKey(p) : ''
+    const key = memo ? plantingKey(p, years) : ''
     const k = memo?.plantings.get(p)
     if (k && k.key === key && k.facts === f && k.lot === lot && k.region === region && sameCutters(k.above, above)) {
       own[index] = k.warnings
@@ -170,7 +172,7 @@ export function measureYard(doc: YardDocument, factsArg: Map<string, SpeciesFact
       return k.measure
     }
     const warnings: ScoreWarning[] = []
-    const measure = measurePlanting(p, index, f, layers[index]!, { lot, region, where, above, own: shapes.get(index) }, warnings)
+    const measure = measurePlanting(p, index, f, layers[index]!, { lot, region, where, above, own: shapes.get(index), years }, warnings)
     own[index] = warnings
     if (memo) memo.plantings.set(p, { key, facts: f, lot, region, above, measure, warnings } satisfies Remembered)
     return measure
@@ -181,7 +183,11 @@ export function measureYard(doc: YardDocument, factsArg: Map<string, SpeciesFact
 }
 
 /** Where a planting is measured: the lot, the region (and its name for warnings), and for the ground layer the shapes above it and its own. */
-export interface PlantingContext { lot: Shape | null; region: string | null; where: string; above?: Cutter[]; own?: Shape }
+export interface PlantingContext {
+  lot: Shape | null; region: string | null; where: string; above?: Cutter[]; own?: Shape
+  /** years since planting for plantings still to plant (null or absent: at maturity) */
+  years?: number | null
+}
 
 /** Status, layer and footprint of one planting; its warnings go to `warnings`. */
 export function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts | undefined, layer: Layer, ctx: PlantingContext, warnings: ScoreWarning[]): PlantingMeasure {
@@ -197,18 +203,36 @@ export function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts 
   const nameKey = name.toLowerCase()
   const cultivar = typeof p.cultivar === 'string' && p.cultivar.length > 0
   const typical = TYPICAL_SIZE[layer]
-  const height = p.height ?? f?.height ?? typical.height
-  if (p.height === undefined && (!f || f.estimated.includes('height'))) warnings.push({ id: p.id, message: `The height of ${name} is an estimate (${height} m); measure or check it` })
+  const matureHeight = p.height ?? f?.height ?? typical.height
+  if (p.height === undefined && (!f || f.estimated.includes('height'))) warnings.push({ id: p.id, message: `The height of ${name} is an estimate (${matureHeight} m); measure or check it` })
+  // a planting still to plant, seen before maturity: its size that many years after planting
+  const young = ctx.years !== null && ctx.years !== undefined && phaseOf(p) === 'planned'
+  const grow = (spread: number) => {
+    const g = grownSize(p, layer, f?.growthRate, { spread, height: matureHeight }, ctx.years!)
+    if (g.estimated) warnings.push({ id: p.id, message: `USDA PLANTS gives no growth rate for ${name}: a moderate rate (${g.years} years to maturity) is assumed` })
+    return g
+  }
 
   if (isAreaPlanting(p)) {
     const spacing = p.spacing !== undefined ? p.spacing : f ? f.spacing : null
     const ring = p.points as Ring
-    const area = layer === 'ground' ? visibleArea(ring, lot, ctx.above ?? [], ctx.own).area : areaInLot(ctx.own ?? shapeOf(ring), lot)
+    let area = layer === 'ground' ? visibleArea(ring, lot, ctx.above ?? [], ctx.own).area : areaInLot(ctx.own ?? shapeOf(ring), lot)
+    let height = matureHeight
+    if (young) {
+      // the drift covers its outline at maturity; before, each plant's footprint relative to its mature one
+      const mature = f?.spread ?? typical.spread
+      const g = grow(mature)
+      area *= Math.min(1, (g.spread / mature) ** 2)
+      height = g.height
+    }
     if (area === 0) warnings.push({ id: p.id, message: layer === 'ground' ? `${name} is outside the lot or wholly covered by shapes drawn above it, so it counts nothing` : `${name} is outside the lot, so it counts nothing` })
     return { index, id: p.id, name, nameKey, status, layer, isArea: true, lawn: f?.lawn === true, cultivar, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height, spread: null, height, spacing }
   }
-  const spread = p.spread ?? f?.spread ?? typical.spread
-  if (p.spread === undefined && (!f || f.estimated.includes('spread'))) warnings.push({ id: p.id, message: `The spread of ${name} is an estimate (${spread} m); measure or check it` })
+  const matureSpread = p.spread ?? f?.spread ?? typical.spread
+  if (p.spread === undefined && (!f || f.estimated.includes('spread'))) warnings.push({ id: p.id, message: `The spread of ${name} is an estimate (${matureSpread} m); measure or check it` })
+  const g = young ? grow(matureSpread) : null
+  const spread = g ? g.spread : matureSpread
+  const height = g ? g.height : matureHeight
   const count = p.count ?? 1
   // a clump of n plants is one disc of n plants' footprint, centred on the planting
   const area = circleAreaInLot(p.x!, p.y!, (spread / 2) * Math.sqrt(count), lot)

@@ -26,6 +26,8 @@ export interface ScoreMemo {
   facts: Map<string, SpeciesFacts>
   /** the lot's roomiest point (for add-plants moves), by lot shape */
   roomiest: WeakMap<Shape, { point: [number, number]; clearance: number }>
+  /** the yard as it is now is measured with its own memo (its plantings sit under other shapes than in the plan) */
+  now?: ScoreMemo
 }
 
 /** A fresh memo: one per yard being edited. */
@@ -35,5 +37,5 @@ export function sameFacts(a: SpeciesFacts | undefined, b: SpeciesFacts | undefin
   if (a === b) return true
   if (!a || !b) return false
   return a.status === b.status && a.layer === b.layer && a.spread === b.spread && a.height === b.height && a.spacing === b.spacing
-    && a.lawn === b.lawn && a.scientificName === b.scientificName && a.commonName === b.commonName && a.estimated.join() === b.estimated.join()
+    && a.lawn === b.lawn && (a.growthRate ?? null) === (b.growthRate ?? null) && a.scientificName === b.scientificName && a.commonName === b.commonName && a.estimated.join() === b.estimated.join()
 }

@@ -17,6 +17,17 @@ export const rows: AccessRow[] = [
     expect: { anonymous: 401, owner: 200, otherHomeowner: 404, advisor: 404, coordinator: 404 },
   },
   {
+    file: 'yards/[id]/history.get.ts', method: 'GET',
+    request: (c) => ({ path: `/api/yards/${c.yardId}/history` }),
+    expect: { anonymous: 401, owner: 200, otherHomeowner: 404, advisor: 404, coordinator: 404 },
+  },
+  {
+    // an id not in the plan: the owner gets as far as the check of the ids
+    file: 'yards/[id]/work.post.ts', method: 'POST',
+    request: (c) => ({ path: `/api/yards/${c.yardId}/work`, body: { version: 1, action: 'planted', ids: ['not-there'], date: '2026-01-02' } }),
+    expect: { anonymous: 401, owner: 400, otherHomeowner: 404, advisor: 404, coordinator: 404 },
+  },
+  {
     file: 'species/facts.post.ts', method: 'POST',
     request: () => ({ path: '/api/species/facts', body: { region: 'US-OH', names: ['Quercus alba'] } }),
     expect: { anonymous: 401, owner: 200, otherHomeowner: 200, advisor: 200, coordinator: 200 },

@@ -95,7 +95,9 @@ describe('recommendations', () => {
     // the three changes turned the yard more native by area than the lawn it started with
     expect(shares.area.share).toBeGreaterThan(0.2)
     const doc = (await owner.client.get(`/api/yards/${yardId}`)).body.document
-    expect(doc.plantings.find((p: { id: string }) => p.id === 'barberry').species).toBe('Echinacea purpurea')
+    // the barberry there now is to remove, its native successor to plant beside it
+    expect(doc.plantings.find((p: { id: string }) => p.id === 'barberry')).toMatchObject({ species: 'Berberis thunbergii', phase: 'removing' })
+    expect(doc.plantings.find((p: { species: string; phase?: string }) => p.species === 'Echinacea purpurea' && p.phase === 'planned')).toBeTruthy()
   })
 
   it('declines with a word, refuses a second decision, and keeps a stale accept proposed', async () => {

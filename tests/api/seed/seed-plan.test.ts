@@ -61,12 +61,12 @@ describe('GET /api/yards/[id]/seed-plan', () => {
   it('offers only natives: not "native and introduced" grasses, introduced or invasive plants', async () => {
     const doc = { format: 'wildward.yard/1', units: 'm', zone: '6a', frost: { lastSpring: '04-25', firstFall: '10-15' }, boundary: [[0, 0], [20, 0], [20, 30], [0, 30]],
       plantings: [
-        // USDA PLANTS native status L48(I,N): native and introduced
-        { id: 'p1', species: 'Poa pratensis', x: 1, y: 1, count: 5 },
-        { id: 'p2', species: 'Phragmites australis', x: 2, y: 2, count: 5 },
-        { id: 'p3', species: 'Bromus inermis', x: 3, y: 3, count: 5 },
-        { id: 'p4', species: 'Berberis thunbergii', x: 4, y: 4, count: 5 },
-        { id: 'p5', species: 'Asclepias tuberosa', x: 5, y: 5, count: 5 },
+        // all to plant (what stands there now is never raised); USDA PLANTS native status L48(I,N): native and introduced
+        { id: 'p1', phase: 'planned', species: 'Poa pratensis', x: 1, y: 1, count: 5 },
+        { id: 'p2', phase: 'planned', species: 'Phragmites australis', x: 2, y: 2, count: 5 },
+        { id: 'p3', phase: 'planned', species: 'Bromus inermis', x: 3, y: 3, count: 5 },
+        { id: 'p4', phase: 'planned', species: 'Berberis thunbergii', x: 4, y: 4, count: 5 },
+        { id: 'p5', phase: 'planned', species: 'Asclepias tuberosa', x: 5, y: 5, count: 5 },
       ] }
     const r = await owner.client.post('/api/yards', { name: 'Natives only', region: 'US-OH', document: doc })
     expect(r.status).toBe(201)

@@ -10,7 +10,7 @@ describe('yards API', () => {
     expect(version).toBe(1)
     const got = await client.get(`/api/yards/${id}`)
     expect(got.body).toMatchObject({ id, name: 'Test plot', region: 'US-OH', version: 1 })
-    expect(got.body.document).toMatchObject({ format: 'wildward.yard/1', boundary: [], areas: [], plantings: [] })
+    expect(got.body.document).toMatchObject({ format: 'wildward.yard/2', boundary: [], areas: [], plantings: [] })
     const renamed = await client.put(`/api/yards/${id}`, { version: 1, name: 'Renamed plot' })
     expect(renamed.status).toBe(200)
     expect(renamed.body.version).toBe(2)

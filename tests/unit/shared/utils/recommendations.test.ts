@@ -16,16 +16,26 @@ function doc(): YardDocument {
 }
 
 describe('applyRecommendation', () => {
-  it('replaces the species in the same spot, with the new size, and leaves the original alone', () => {
+  it('marks a planting there now to remove and plans its replacement in the same spot, leaving the original document alone', () => {
     const before = doc()
     const after = applyRecommendation(before, { kind: 'replace', plantingId: 'barberry', species: 'Ilex verticillata', spread: 2, height: 2.5 }, 'rec-1')
-    expect(after.plantings[2]).toEqual({ id: 'barberry', species: 'Ilex verticillata', cultivar: null, x: 8, y: 8, count: 3, spread: 2, height: 2.5 })
+    expect(after.plantings[2]).toMatchObject({ id: 'barberry', species: 'Berberis thunbergii', phase: 'removing' })
+    expect(after.plantings[3]).toEqual({ id: 'rec-1', species: 'Ilex verticillata', cultivar: null, x: 8, y: 8, count: 3, spread: 2, height: 2.5, phase: 'planned' })
     expect(before.plantings[2]!.species).toBe('Berberis thunbergii')
+    expect(before.plantings[2]!.phase).toBeUndefined()
+  })
+
+  it('changes a planting still only planned in place', () => {
+    const d = doc()
+    d.plantings[2] = { ...d.plantings[2]!, phase: 'planned' }
+    const after = applyRecommendation(d, { kind: 'replace', plantingId: 'barberry', species: 'Ilex verticillata' }, 'rec-1')
+    expect(after.plantings).toHaveLength(d.plantings.length)
+    expect(after.plantings[2]).toMatchObject({ id: 'barberry', species: 'Ilex verticillata', phase: 'planned' })
   })
 
   it('adds a clump at the centre of the bed (the centroid of a rectangle is its centre: elementary geometry)', () => {
     const after = applyRecommendation(doc(), { kind: 'add', bedId: 'bed', species: 'Asclepias tuberosa', count: 5, spread: 0.45, height: 0.6 }, 'rec-2')
-    expect(after.plantings.at(-1)).toEqual({ id: 'rec-2', species: 'Asclepias tuberosa', cultivar: null, x: 3, y: 2, count: 5, spread: 0.45, height: 0.6 })
+    expect(after.plantings.at(-1)).toEqual({ id: 'rec-2', species: 'Asclepias tuberosa', cultivar: null, x: 3, y: 2, count: 5, spread: 0.45, height: 0.6, phase: 'planned' })
   })
 
   it('draws a lawn conversion above every other area planting, with an id that does not clash', () => {
