@@ -27,10 +27,7 @@ import type { Point } from '#shared/utils/polygon'
 import { allIds, deleteElements, duplicateElements, findElement, layeredShapes, LOT_ID, newId, shiftZ, snapStep, translateElements, type Element } from '#shared/utils/yard-edits'
 import type { Score, Share } from '#shared/schemas/score'
 
-// the pure edits and geometry live in shared/utils/yard-edits.ts; re-exported for the editor's components
-export * from '#shared/utils/yard-edits'
-export { pointInRing as pointInPolygon } from '#shared/utils/polygon'
-export { distanceToSegment, type Box } from '#shared/utils/geometry'
+// the pure edits and geometry live in shared/utils/yard-edits.ts: components import them from there
 
 export type YardAccessLevel = 'owner' | 'edit' | 'view'
 export const HISTORY_LIMIT = 150

@@ -13,7 +13,7 @@ import type { ScoreMemo } from './memo'
 export { createScoreMemo, type ScoreMemo } from './memo'
 export { DEFAULT_GOAL, GOAL_MAX, GOAL_MIN, GOAL_TOLERANCE, meetsGoal } from './goal'
 export { round3, contribution, tallyYard, type YardTally } from './tally'
-export { factsKey, speciesKeys, measureYard, TYPICAL_SIZE, type MeasuredYard, type PlantingMeasure } from './measure'
+export { speciesKeys, measureYard, TYPICAL_SIZE, MOWN_LAWN_HEIGHT, type MeasuredYard, type PlantingMeasure } from './measure'
 
 const SHARE_FIELDS: ShareKind[] = ['count', 'area', 'volume']
 
@@ -44,7 +44,7 @@ export function scoreMeasured(measured: MeasuredYard, goal: number, memo?: Score
 }
 
 /**
- * The score of a yard document: species facts keyed by `factsKey`, the goal share, the region (default: the
+ * The score of a yard document: species facts keyed by `nameKey` (shared/utils/species-name.ts), the goal share, the region (default: the
  * document's). The memo, when given, carries what the last call worked out (the editor's; the server passes none).
  */
 export function scoreYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, goal: number, region?: string | null, memo?: ScoreMemo): Score {
