@@ -8,7 +8,8 @@ import { join, resolve } from 'node:path'
 import { tmpdir } from 'node:os'
 
 export const ROOT = resolve(import.meta.dirname, '..', '..')
-export const DATA = join(ROOT, '.data')
+// WW_DATA_DIR moves it (a test starts a throwaway MariaDB there)
+export const DATA = process.env.WW_DATA_DIR ? resolve(process.env.WW_DATA_DIR) : join(ROOT, '.data')
 
 const children = []
 
@@ -63,6 +64,12 @@ export function ensureChromium() {
   aptInstall(['chromium', 'fonts-liberation'])
 }
 
+/** HAProxy from Debian's packages: the round-robin proxy in front of two app instances in the scale-out test. */
+export function ensureHaproxy() {
+  if (has('haproxy')) return
+  aptInstall(['haproxy'])
+}
+
 export function freePort() {
   return new Promise((res, rej) => {
     const srv = createServer()
@@ -105,11 +112,33 @@ function sql(socket, statement) {
   return spawnSync('mariadb', ['--no-defaults', `--socket=${socket}`, '-uroot', '-N', '-e', statement], { encoding: 'utf8' })
 }
 
+// What `durable: false` trades away: InnoDB writes its log at commit but flushes it to disk about once a
+// second, so a machine that stops can lose the last second of commits. Only for throwaway test and bench data.
+const RELAXED_DURABILITY = ['--innodb-flush-log-at-trx-commit=2']
+
+/**
+ * The session cookie's name and flags for an app served at appUrl: over HTTPS a __Host- cookie (Secure, Path=/,
+ * no Domain), which a browser only accepts from that very origin.
+ */
+export function sessionCookieEnv(appUrl) {
+  return /^https:/i.test(appUrl)
+    ? { NUXT_SESSION_NAME: '__Host-wildward-session', NUXT_SESSION_COOKIE_SECURE: 'true' }
+    : { NUXT_SESSION_NAME: 'wildward-session', NUXT_SESSION_COOKIE_SECURE: 'false' }
+}
+
+/**
+ * The largest statement MariaDB accepts (its max_allowed_packet, set explicitly): a saved yard document is one
+ * statement, and tests/unit/scripts/packet-size.test.ts checks the document cap fits with room for escaping.
+ */
+export const MAX_ALLOWED_PACKET_BYTES = 16 * 1024 * 1024
+
 /**
  * Starts (or reuses) the private MariaDB server whose data lives in .data/mariadb, listening on 127.0.0.1 only.
  * Returns the socket; the server is stopped with the other children on exit when this process started it.
+ * `durable` (what `npm start` asks for) keeps InnoDB's default flush at every commit, and turns it back on in a
+ * server that a test run started relaxed; tests and benchmarks pass `durable: false`.
  */
-export async function startMariaDb() {
+export async function startMariaDb({ durable = true } = {}) {
   ensureMariaDbInstalled()
   const datadir = join(DATA, 'mariadb')
   const socket = socketPath()
@@ -117,6 +146,7 @@ export async function startMariaDb() {
   const port = Number(process.env.WW_DB_PORT || 3307)
   if (sql(socket, 'SELECT 1').status === 0) {
     log(`MariaDB already running (socket ${socket})`)
+    if (durable && sql(socket, 'SET GLOBAL innodb_flush_log_at_trx_commit = 1').status !== 0) fail('could not turn on full durability in the running MariaDB')
     return { socket, port }
   }
   if (!existsSync(join(datadir, 'mysql'))) {
@@ -130,15 +160,15 @@ export async function startMariaDb() {
   const child = spawn('mariadbd', ['--no-defaults', '--user=root', `--datadir=${datadir}`, `--port=${port}`,
     '--bind-address=127.0.0.1', `--socket=${socket}`, `--pid-file=${join(DATA, 'mariadb.pid')}`,
     `--log-error=${logFile}`, '--skip-name-resolve', '--skip-log-bin', '--character-set-server=utf8mb4',
-    '--collation-server=utf8mb4_unicode_ci', '--max-connections=500', '--innodb-buffer-pool-size=256M',
-    '--innodb-flush-log-at-trx-commit=2'], { stdio: 'ignore' })
+    '--collation-server=utf8mb4_unicode_ci', '--max-connections=500', `--max-allowed-packet=${MAX_ALLOWED_PACKET_BYTES}`, '--innodb-buffer-pool-size=256M',
+    ...(durable ? [] : RELAXED_DURABILITY)], { stdio: 'ignore' })
   let exited = false
   child.on('exit', () => { exited = true })
   children.push({ name: 'MariaDB', child })
   for (let i = 0; i < 150; i++) {
     if (exited) fail(`MariaDB stopped at start; see ${logFile}`)
     if (sql(socket, 'SELECT 1').status === 0) {
-      log(`MariaDB running on 127.0.0.1:${port}`)
+      log(`MariaDB running on 127.0.0.1:${port}${durable ? '' : ' (log flushed about once a second: test data only)'}`)
       return { socket, port }
     }
     await new Promise((r) => setTimeout(r, 200))
@@ -179,6 +209,30 @@ export async function startFakeSmtp({ smtpPort, httpPort, store }) {
   return { smtpUrl: `smtp://127.0.0.1:${smtpPort}`, captureUrl: `http://127.0.0.1:${httpPort}` }
 }
 
+/**
+ * Starts the fake payment service (API, hosted checkout page, signed webhooks to `webhookUrl`); returns the
+ * settings the app needs to talk to it through the official SDK.
+ */
+export async function startFakePayments({ port, webhookUrl, store, secretKey, webhookSecret, retryMs }) {
+  const child = spawn(process.execPath, [join(ROOT, 'scripts', 'fake-payments.mjs')], {
+    stdio: ['ignore', 'inherit', 'inherit'],
+    cwd: ROOT,
+    env: {
+      ...process.env, FAKE_PAYMENTS_PORT: String(port), FAKE_PAYMENTS_WEBHOOK_URL: webhookUrl, FAKE_PAYMENTS_STORE: store,
+      FAKE_PAYMENTS_SECRET_KEY: secretKey, FAKE_PAYMENTS_WEBHOOK_SECRET: webhookSecret, FAKE_PAYMENTS_RETRY_MS: String(retryMs ?? 1000),
+    },
+  })
+  children.push({ name: 'fake payments', child })
+  await waitForHttp(`http://127.0.0.1:${port}/_fake/log`, 20_000, child)
+  return {
+    url: `http://127.0.0.1:${port}`,
+    env: {
+      NUXT_PAYMENTS_SECRET_KEY: secretKey, NUXT_PAYMENTS_WEBHOOK_SECRET: webhookSecret,
+      NUXT_PAYMENTS_API_HOST: '127.0.0.1', NUXT_PAYMENTS_API_PORT: String(port), NUXT_PAYMENTS_API_PROTOCOL: 'http',
+    },
+  }
+}
+
 export async function waitForHttp(url, timeoutMs, child) {
   let exited = false
   child?.on('exit', () => { exited = true })
@@ -207,6 +261,13 @@ export function stopAll() {
 }
 
 export function build(env) {
+  // the root tsconfig.json points into .nuxt/, which the build's TypeScript transforms read (a fresh checkout lacks it)
+  if (!existsSync(join(ROOT, '.nuxt', 'tsconfig.server.json'))) {
+    log('generating .nuxt/ (nuxt prepare)')
+    const { WW_NUXT_DIR: _, ...prepareEnv } = env
+    mkdirSync(DATA, { recursive: true })
+    run('flock', [join(DATA, 'typecheck.lock'), 'npx', 'nuxt', 'prepare'], { env: { ...process.env, ...prepareEnv, WW_NUXT_DIR: '' } })
+  }
   log('building the app (nuxt build)')
   run('npx', ['nuxt', 'build'], { env: { ...process.env, ...env } })
 }

@@ -1,4 +1,4 @@
-// Liveness and readiness: 200 when the database answers, 503 with the reason when it does not.
+// Liveness and readiness: 200 when the database answers, 503 (with Retry-After, and never the failed query) when not.
 import { sql } from 'drizzle-orm'
 
 export default defineEventHandler(async (event) => {
@@ -6,8 +6,9 @@ export default defineEventHandler(async (event) => {
     await startupReady()
     await useDb().execute(sql`select 1`)
     return { status: 'ok', database: 'ok' }
-  } catch (e) {
+  } catch {
     setResponseStatus(event, 503)
-    return { status: 'unavailable', database: 'unreachable', message: `The database is not reachable: ${(e as Error).message}` }
+    setResponseHeader(event, 'retry-after', DATABASE_RETRY_AFTER_S)
+    return { status: 'unavailable', database: 'unreachable', message: DATABASE_UNREACHABLE_MESSAGE }
   }
 })

@@ -4,7 +4,8 @@ import { yardDocument } from '#shared/schemas/yard-document'
 import { scoreDocument } from '../services/scoring'
 
 export default defineEventHandler(async (event) => {
-  const doc = await readBodyWith(event, yardDocument)
+  // the session before the body: nobody signed out gets a document-sized body read
   await requireUser(event)
+  const doc = await readBodyWith(event, yardDocument)
   return scoreDocument(doc)
 })

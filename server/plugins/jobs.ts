@@ -6,13 +6,16 @@ export default defineNitroPlugin((nitroApp) => {
   const intervalMs = Number(config.jobsIntervalMs)
   if (!config.databaseUrl || !(intervalMs > 0)) return
   const batch = Math.max(1, Number(config.jobsBatchSize) || 50)
-  let running = false
+  let running: Promise<void> | null = null
   let stopped = false
 
-  async function tick() {
+  function tick() {
     // one tick at a time per instance; other instances run theirs in parallel over the same table
     if (running || stopped) return
-    running = true
+    running = runBatches().finally(() => { running = null })
+  }
+
+  async function runBatches() {
     try {
       await startupReady()
       const until = Date.now() + intervalMs * 5
@@ -23,12 +26,16 @@ export default defineNitroPlugin((nitroApp) => {
       }
     } catch (e) {
       console.error('[wildward] background jobs:', (e as Error).message)
-    } finally {
-      running = false
     }
   }
 
   const timer = setInterval(tick, intervalMs)
   timer.unref?.()
-  nitroApp.hooks.hook('close', () => { stopped = true; clearInterval(timer) })
+  // a stopping instance (SIGTERM: Nitro awaits close hooks) finishes the jobs it has claimed and claims no more,
+  // rather than leaving them claimed until another instance takes them as stale ten minutes later
+  nitroApp.hooks.hook('close', async () => {
+    stopped = true
+    clearInterval(timer)
+    await running
+  })
 })

@@ -1,9 +1,10 @@
 import type { H3Event } from 'h3'
-import { and, eq, gt, isNull, sql, count } from 'drizzle-orm'
+import { and, eq, gt, isNull, sql } from 'drizzle-orm'
 import { createHash, randomBytes } from 'node:crypto'
-import { users, passwordResetTokens, loginFailures } from '../database/schema'
-import type { AccountRow } from '../database/schema'
+import { users, passwordResetTokens, loginAttempts, sessions, type AccountRow } from '../database/schema'
 import { acceptInvite } from './sharing'
+import { enqueueJob } from './jobs'
+import { openSession, endSession, endOtherSessions, sessionToken } from './sessions'
 
 const THROTTLE_WINDOW_MS = 15 * 60 * 1000
 const RESET_TOKEN_TTL_MS = 60 * 60 * 1000
@@ -12,50 +13,83 @@ export function publicUser(u: AccountRow) {
   return { id: u.id, email: u.email, name: u.name, role: u.role }
 }
 
+/** Opens a session row and seals its token into the cookie (replacing any earlier session of this browser). */
 export async function startSession(event: H3Event, u: AccountRow) {
-  await replaceUserSession(event, { user: publicUser(u), loggedInAt: Date.now() })
+  const previous = await sessionToken(event).catch(() => undefined)
+  if (previous) await endSession(previous)
+  const token = await openSession(u.id)
+  await replaceUserSession(event, { user: publicUser(u), secure: { token }, loggedInAt: Date.now() })
 }
 
 export function clientAddress(event: H3Event): string {
-  // X-Forwarded-For is trusted only behind a known proxy (NUXT_TRUST_PROXY), else anyone could dodge the throttle
-  return (getRequestIP(event, { xForwardedFor: !!useRuntimeConfig().trustProxy }) ?? 'unknown').slice(0, 64)
+  // X-Forwarded-For is trusted only behind a known proxy (NUXT_TRUST_PROXY), else anyone could dodge the throttle;
+  // its last entry is the one our proxy added (earlier ones are whatever the client sent)
+  const forwarded = useRuntimeConfig().trustProxy ? getRequestHeader(event, 'x-forwarded-for') : undefined
+  const lastHop = forwarded?.split(',').map((a) => a.trim()).filter(Boolean).at(-1)
+  return (lastHop ?? getRequestIP(event) ?? 'unknown').slice(0, 64)
 }
 
-/** 429 when this e-mail or this address has failed too often in the last 15 minutes. */
-async function assertNotThrottled(event: H3Event, email: string, address: string) {
+const throttleKey = (...parts: string[]) => createHash('sha256').update(parts.join('\u0000')).digest('hex')
+
+/**
+ * Counts one attempt against a throttle key and returns the count in the current window, atomically: the upsert
+ * locks the row, so parallel attempts each get their own number.
+ */
+async function countAttempt(tx: Parameters<Parameters<ReturnType<typeof useDb>['transaction']>[0]>[0], key: string): Promise<number> {
+  const fresh = sql`${loginAttempts.windowStart} < now(3) - interval ${THROTTLE_WINDOW_MS / 1000} second`
+  await tx.insert(loginAttempts).values({ keyHash: key, attempts: 1 }).onDuplicateKeyUpdate({
+    set: {
+      // attempts is assigned first and still sees the old window_start; window_start then restarts an old window
+      attempts: sql`if(${fresh}, 1, ${loginAttempts.attempts} + 1)`,
+      windowStart: sql`if(${fresh}, now(3), ${loginAttempts.windowStart})`,
+    },
+  })
+  const [row] = await tx.select({ n: loginAttempts.attempts }).from(loginAttempts).where(eq(loginAttempts.keyHash, key))
+  return row?.n ?? 1
+}
+
+/**
+ * Reserves a sign-in attempt before the password is checked, or answers 429. The limit per e-mail applies to
+ * each address on its own (an address that has not failed is never refused the right password, OWASP ASVS 4.0
+ * 2.2.1); an address also has an overall limit across e-mails. A success gives both reservations back.
+ */
+async function reserveAttempt(event: H3Event, email: string, address: string) {
   const cfg = useRuntimeConfig()
-  const since = new Date(Date.now() - THROTTLE_WINDOW_MS)
-  const db = useDb()
-  const [byEmail] = await db.select({ n: count() }).from(loginFailures).where(and(eq(loginFailures.email, email), gt(loginFailures.at, since)))
-  const [byAddress] = await db.select({ n: count() }).from(loginFailures).where(and(eq(loginFailures.address, address), gt(loginFailures.at, since)))
-  if ((byEmail?.n ?? 0) >= Number(cfg.loginThrottlePerEmail) || (byAddress?.n ?? 0) >= Number(cfg.loginThrottlePerAddress)) {
+  const pairKey = throttleKey('pair', email, address)
+  const addressKey = throttleKey('address', address)
+  const [pair, byAddress] = await useDb().transaction(async (tx) => [await countAttempt(tx, pairKey), await countAttempt(tx, addressKey)])
+  if (pair > Number(cfg.loginThrottlePerEmail) || byAddress > Number(cfg.loginThrottlePerAddress)) {
     setResponseHeader(event, 'Retry-After', THROTTLE_WINDOW_MS / 1000)
-    throw createError({ status: 429, message: 'Too many failed sign-ins. Please wait 15 minutes, or reset your password.' })
+    throw createError({ status: 429, message: 'Too many failed sign-ins from here. Please wait 15 minutes, or reset your password.' })
   }
+  return { pairKey, addressKey }
 }
 
 export async function signIn(event: H3Event, email: string, password: string): Promise<AccountRow> {
   const address = clientAddress(event)
-  await assertNotThrottled(event, email, address)
+  const { pairKey, addressKey } = await reserveAttempt(event, email, address)
   const db = useDb()
   const [u] = await db.select().from(users).where(eq(users.email, email)).limit(1)
   // verify against a dummy hash when the account does not exist, so timing does not reveal which e-mails exist
   const ok = u ? await verifyPassword(u.passwordHash, password) : (await hashPassword(password), false)
   if (!u || !ok) {
-    await db.insert(loginFailures).values({ email, address })
     throw createError({ status: 401, message: 'That e-mail and password do not match an account', data: { fields: { password: 'E-mail or password is wrong' } } })
   }
-  // a success clears this e-mail's failures
-  await db.delete(loginFailures).where(eq(loginFailures.email, email))
+  // a success clears this pair's count and takes its attempt off the address's
+  await db.delete(loginAttempts).where(eq(loginAttempts.keyHash, pairKey))
+  await db.update(loginAttempts).set({ attempts: sql`greatest(${loginAttempts.attempts} - 1, 0)` }).where(eq(loginAttempts.keyHash, addressKey))
   return u
 }
 
 export async function register(input: { email: string; name: string; password: string; invite?: string }): Promise<AccountRow> {
   const db = useDb()
+  const taken = () => createError({ status: 409, message: 'An account with that e-mail already exists', data: { fields: { email: 'An account with that e-mail already exists — sign in or reset the password' } } })
   const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email)).limit(1)
-  if (existing) throw createError({ status: 409, message: 'An account with that e-mail already exists', data: { fields: { email: 'An account with that e-mail already exists — sign in or reset the password' } } })
+  if (existing) throw taken()
   const passwordHash = await hashPassword(input.password)
-  const id = insertedId(await db.insert(users).values({ email: input.email, name: input.name, passwordHash }).$returningId())
+  // the unique key decides a race between two registrations of one e-mail
+  const id = await db.insert(users).values({ email: input.email, name: input.name, passwordHash }).$returningId()
+    .then(insertedId, (e) => { throw isDuplicateKey(e) ? taken() : e })
   const [u] = await db.select().from(users).where(eq(users.id, id))
   // registering from an invitation link accepts it; a stale or foreign link still leaves a working account
   if (input.invite) await acceptInvite(u!, input.invite).catch(() => undefined)
@@ -64,8 +98,19 @@ export async function register(input: { email: string; name: string; password: s
 
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex')
 
-/** Mails a single-use reset link when the account exists; answers the same either way. */
+export const PASSWORD_RESET_JOB = 'password-reset'
+
+/**
+ * Queues a reset mail for an e-mail: the request does the same single insert whether or not an account uses it,
+ * so neither its answer nor its timing tells. One job per e-mail per minute.
+ */
 export async function requestPasswordReset(email: string) {
+  const minute = Math.floor(Date.now() / 60_000)
+  await enqueueJob(PASSWORD_RESET_JOB, { email }, new Date(), `${PASSWORD_RESET_JOB}:${sha256(email)}:${minute}`)
+}
+
+/** The job: mails a single-use reset link when the account exists. */
+export async function sendPasswordReset({ email }: { email: string }) {
   const db = useDb()
   const [u] = await db.select().from(users).where(eq(users.email, email)).limit(1)
   if (!u) return
@@ -90,15 +135,18 @@ export async function resetPassword(token: string, password: string): Promise<Ac
     // one reset invalidates every other outstanding link for the account
     await tx.update(passwordResetTokens).set({ usedAt: sql`now(3)` }).where(and(eq(passwordResetTokens.userId, row.userId), isNull(passwordResetTokens.usedAt)))
     await tx.update(users).set({ passwordHash: await hashPassword(password) }).where(eq(users.id, row.userId))
-    await tx.delete(loginFailures).where(eq(loginFailures.email, sql`(select email from users where id = ${row.userId})`))
+    // a reset ends every session of the account (the caller opens a new one)
+    await tx.delete(sessions).where(eq(sessions.userId, row.userId))
     const [u] = await tx.select().from(users).where(eq(users.id, row.userId))
     return u!
   })
 }
 
-export async function changePassword(u: AccountRow, current: string, next: string) {
+/** Changes the password and ends the account's other sessions (the one making the change stays signed in). */
+export async function changePassword(event: H3Event, u: AccountRow, current: string, next: string) {
   if (!(await verifyPassword(u.passwordHash, current))) {
     throw createError({ status: 400, message: 'The current password is wrong', data: { fields: { currentPassword: 'This is not your current password' } } })
   }
   await useDb().update(users).set({ passwordHash: await hashPassword(next) }).where(eq(users.id, u.id))
+  await endOtherSessions(u.id, await sessionToken(event))
 }

@@ -10,11 +10,14 @@ export type AdviceRequestRow = typeof adviceRequests.$inferSelect
 export type VisitRow = typeof siteVisits.$inferSelect
 
 export async function createAdviceRequest(owner: AccountRow, yard: YardRow, input: { message: string; preferredTimes: string }) {
-  const db = useDb()
-  const [open] = await db.select({ id: adviceRequests.id }).from(adviceRequests)
-    .where(and(eq(adviceRequests.yardId, yard.id), inArray(adviceRequests.status, ['new', 'assigned']))).limit(1)
-  if (open) throw createError({ status: 409, message: 'This yard already has an open request for advice', data: { fields: { message: 'A request is already open for this yard' } } })
-  const id = insertedId(await db.insert(adviceRequests).values({ yardId: yard.id, requesterId: owner.id, message: input.message, preferredTimes: input.preferredTimes }).$returningId())
+  const id = await withContentionRetry(() => useDb().transaction(async (tx) => {
+    // the yard row's lock makes "one open request per yard" hold for requests sent at once
+    await tx.select({ id: yards.id }).from(yards).where(eq(yards.id, yard.id)).for('update')
+    const [open] = await tx.select({ id: adviceRequests.id }).from(adviceRequests)
+      .where(and(eq(adviceRequests.yardId, yard.id), inArray(adviceRequests.status, ['new', 'assigned']))).limit(1)
+    if (open) throw createError({ status: 409, message: 'This yard already has an open request for advice', data: { fields: { message: 'A request is already open for this yard' } } })
+    return insertedId(await tx.insert(adviceRequests).values({ yardId: yard.id, requesterId: owner.id, message: input.message, preferredTimes: input.preferredTimes }).$returningId())
+  }))
   return getRequestView(id)
 }
 

@@ -19,6 +19,7 @@ import { REGIONS } from '#shared/utils/regions'
 import { buildSearchIndex, buildTableIndex, namedMask, searchPage, tablePage, type CachedSpecies, type SearchIndex, type TableIndex } from './catalogue-index'
 import { buildRegionFits, rankFits, rankSwaps, type FitConditions, type FitItem, type FitsAnswer, type RegionFits, type YardContext } from './catalogue-fits'
 import { compareNames, nameKey } from '#shared/utils/species-name'
+import { sowFreshOf } from '#shared/utils/seed-fresh'
 
 export { BLOOM_SEASON } from './catalogue-fits'
 export type { CachedSpecies } from './catalogue-index'
@@ -192,7 +193,8 @@ async function buildCatalogue(forStamp: string): Promise<Catalogue> {
 
 /** This instance's copy of the catalogue, rebuilt when the stamp row says the database changed. */
 export async function useCatalogue(): Promise<Catalogue> {
-  const s = await currentStamp()
+  // while the database is unreachable the copy in hand keeps answering (it cannot have changed meanwhile)
+  const s = await currentStamp().catch((e) => { if (cache && isDatabaseUnreachable(e)) return cache.stamp; throw e })
   if (cache && cache.stamp === s) return cache
   if (!building || building.stamp !== s) {
     const promise = buildCatalogue(s).then((c) => { if (building?.stamp === s) { cache = c; building = null } return c })
@@ -245,6 +247,7 @@ export function factsOf(s: CachedSpecies, status: RegionStatus): SpeciesFacts {
 
 export function detailsOf(s: CachedSpecies, status: RegionStatus): SpeciesDetails {
   const d = s.data
+  const fresh = sowFreshOf(d)
   return {
     ...factsOf(s, status),
     family: d.family, growthHabit: d.growthHabit, bloomMonths: d.bloomMonths, minZone: d.minZone,
@@ -252,7 +255,7 @@ export function detailsOf(s: CachedSpecies, status: RegionStatus): SpeciesDetail
     propagatedBySeed: d.propagatedBySeed, coldStratification: d.coldStratification, coldMoistDays: d.coldMoistDays,
     seedNeedsLight: d.seedNeedsLight, scarify: d.scarify, hotWaterSoak: d.hotWaterSoak, seedsPerPound: d.seedsPerPound,
     seedlingsPerPot: d.seedlingsPerPot, commercialAvailability: d.commercialAvailability, wildlife: d.wildlife,
-    sources: d.sources, estimatedFields: d.estimated, noxiousIn: d.noxiousIn, notes: d.notes ?? null,
+    sowFresh: fresh.value, sources: { ...d.sources, sowFresh: fresh.source }, estimatedFields: d.estimated, noxiousIn: d.noxiousIn, notes: d.notes ?? null,
     usdaSymbol: d.symbol || null, origin: s.origin, hasFacts: d.hasCharacteristics, flowerConspicuous: d.flowerConspicuous,
     duration: d.duration,
   }
@@ -360,6 +363,7 @@ export function sameValue(a: unknown, b: unknown) {
 }
 
 export function currentValue(data: CatalogueSpeciesData, field: OverrideField): unknown {
+  if (field === 'sowFresh') return sowFreshOf(data).value
   return (data as unknown as Record<string, unknown>)[field] ?? null
 }
 
@@ -535,7 +539,7 @@ export async function exportCsv(q: ExportQuery): Promise<string> {
     if (named && !named[i]) continue
     const status = statuses ? statuses.get(s.id) ?? 'absent' : null
     if (q.status && status !== q.status) continue
-    const record: Record<string, unknown> = { ...d, region: q.region ?? '', status, source: '', estimated: d.estimated, origin: s.origin, usdaSymbol: d.symbol }
+    const record: Record<string, unknown> = { ...d, sowFresh: sowFreshOf(d).value, region: q.region ?? '', status, source: '', estimated: d.estimated, origin: s.origin, usdaSymbol: d.symbol }
     rows.push(record)
   }
   rows.sort((a, b) => compareNames(String(a.scientificName), String(b.scientificName)))

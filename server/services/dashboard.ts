@@ -6,6 +6,7 @@ import { and, eq, gte, lte, asc, desc, like, sql, type SQL } from 'drizzle-orm'
 import { pledges, shareSnapshots, driveSummaries, driveViewCache, type DriveRow } from '../database/schema'
 import type { PledgesQuery } from '#shared/schemas/drives'
 import { driveView, shareColumn, today } from './drives'
+import { csvCell } from '#shared/utils/csv'
 
 export const HISTOGRAM_BINS = 10
 // a neighbourhood with fewer consenting yards than this is folded into "Other", so no household stands out
@@ -152,7 +153,7 @@ function tableFilter(drive: DriveRow, q: PledgesQuery): SQL | undefined {
   const col = shareColumn(drive.certifies)
   const conditions = [consenting(drive)]
   if (q.status !== 'any') conditions.push(eq(pledges.status, q.status))
-  if (q.neighbourhood) conditions.push(like(pledges.neighbourhood, `%${q.neighbourhood.replace(/[\\%_]/g, (c) => `\\${c}`)}%`))
+  if (q.neighbourhood) conditions.push(like(pledges.neighbourhood, containsPattern(q.neighbourhood)))
   if (q.minShare !== undefined) conditions.push(gte(col, q.minShare))
   if (q.maxShare !== undefined) conditions.push(lte(col, q.maxShare))
   return and(...conditions)
@@ -190,13 +191,6 @@ export async function pledgeTable(drive: DriveRow, q: PledgesQuery) {
 
 function tidy<T extends { nativeCoverAdded: unknown; lawnConverted: unknown }>(r: T) {
   return { ...r, nativeCoverAdded: Math.round(num(r.nativeCoverAdded) * 10) / 10, lawnConverted: Math.round(num(r.lawnConverted) * 10) / 10 }
-}
-
-const csvCell = (v: unknown) => {
-  const s = v instanceof Date ? v.toISOString() : String(v ?? '')
-  // a leading = + - @ would run as a formula in a spreadsheet
-  const safe = /^[=+\-@]/.test(s) && !/^-?\d/.test(s) ? `'${s}` : s
-  return /[",\n\r]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe
 }
 
 export async function pledgeCsv(drive: DriveRow, q: PledgesQuery) {

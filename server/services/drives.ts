@@ -122,25 +122,29 @@ export async function pledgeYard(owner: AccountRow, yard: YardRow, input: { neig
   const drive = await runningDrive()
   if (!drive) throw createError({ status: 409, message: 'No pledge drive is running just now' })
   const cols = shareColumns(await yardShares(yard.document, yard.region))
-  // the pledge, the day's snapshot and the drive's version change together; the pledge row is locked while read
-  const { existing, p } = await useDb().transaction(async (tx) => {
+  // the pledge, the day's snapshot and the drive's version change together; the pledge row is locked while read.
+  // Two first pledges at once: the unique key (yard, drive) lets one insert land; the other updates (or, chosen
+  // as a deadlock victim on the gap lock, runs again and finds the row)
+  const { created, p } = await withContentionRetry(() => useDb().transaction(async (tx) => {
     const [existing] = await tx.select().from(pledges).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id))).limit(1).for('update')
     const status = statusFor(drive, existing?.status ?? null, cols)
+    let created = false
     if (existing) {
       await tx.update(pledges).set({ ...input, ...cols, status }).where(eq(pledges.id, existing.id))
     } else {
       const base = drive.certifies === 'count' ? cols.countShare : drive.certifies === 'area' ? cols.areaShare : cols.volumeShare
-      await tx.insert(pledges).values({
+      created = await tx.insert(pledges).values({
         driveId: drive.id, yardId: yard.id, userId: owner.id, ...input, pledgedOn: today(), ...cols, status,
         baseAreaNative: cols.areaNative, baseLawnArea: cols.lawnArea, baseShare: base, reachedAt: status === 'reached' ? new Date() : null,
-      }).onDuplicateKeyUpdate({ set: { neighbourhood: input.neighbourhood, consent: input.consent } })
+      }).then(() => true, (e) => { if (!isDuplicateKey(e)) throw e; return false })
+      if (!created) await tx.update(pledges).set(input).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id)))
     }
     await upsertSnapshot(yard.id, cols, today(), tx)
     await bumpDriveVersion(drive.id, tx)
     const [p] = await tx.select().from(pledges).where(and(eq(pledges.yardId, yard.id), eq(pledges.driveId, drive.id))).limit(1)
-    return { existing, p }
-  })
-  return { created: !existing, drive: driveView(drive), pledge: pledgeView(p!, drive) }
+    return { created, p }
+  }))
+  return { created, drive: driveView(drive), pledge: pledgeView(p!, drive) }
 }
 
 export async function withdrawPledge(yardId: number) {

@@ -7,13 +7,12 @@ import type { YardRow } from '../database/schema'
 import { getSpeciesDetails } from './catalogue'
 import { nameKey } from '#shared/utils/species-name'
 import {
-  computeSeedPlan, frostDates, plantsBySpecies, DEFAULT_MARGIN, isoDate, parseIsoDate, addDays,
+  computeSeedPlan, plantsBySpecies, raisedFromSeed, DEFAULT_MARGIN,
   type SeedPlan, type SeedPlanSettings, type SpeciesSetting, type SeedTask,
 } from '#shared/utils/seed-plan'
+import { frostDates, isoDate, parseIsoDate, addDays } from '#shared/utils/seed-season'
 import type { UpdateSeedPlanBody, SeedPriceBody } from '#shared/schemas/seed'
 import type { SpeciesDetails } from '#shared/types/species'
-
-const NATIVE = new Set(['native', 'nativeAndIntroduced'])
 
 export interface StoredSettings extends SeedPlanSettings { version: number }
 
@@ -34,8 +33,7 @@ export async function seedPlanFor(yard: YardRow, today = isoDate(new Date())): P
   for (const [name, d] of details) detailsByKey.set(nameKey(name), d)
 
   const counts = plantsBySpecies(plantings, (key) => detailsByKey.get(key)?.spacing ?? null)
-  // natives only: the point of growing from seed here is to add native plants
-  const species = [...counts].filter(([key]) => NATIVE.has(detailsByKey.get(key)?.status ?? ''))
+  const species = [...counts].filter(([key]) => raisedFromSeed(detailsByKey.get(key)?.status))
     .map(([key, c]) => ({ key, name: c.name, plants: c.plants, cultivars: c.cultivars, facts: detailsByKey.get(key) ?? null }))
 
   const keys = species.map((s) => s.key)
@@ -98,7 +96,7 @@ export function taskUid(yardId: number, task: SeedTask): string {
 export function taskEvents(plans: Array<Pick<YardSeedPlan, 'yardId' | 'yardName' | 'tasks'>>, link: (yardId: number) => string): EventAttributes[] {
   return plans.flatMap((plan) => plan.tasks.map((task): EventAttributes => ({
     uid: taskUid(plan.yardId, task),
-    title: `${task.title} (${plan.yardName})`,
+    title: `${task.title} (${icsLine(plan.yardName)})`,
     description: [
       task.endDate ? `From ${task.date} to ${task.endDate}.` : null,
       task.optional ? 'Only if you did not sow outdoors in time.' : null,
@@ -117,7 +115,14 @@ export function taskEvents(plans: Array<Pick<YardSeedPlan, 'yardId' | 'yardName'
   })))
 }
 
+/** Text for one iCalendar property: a CR, LF or other control character (from a yard name) would start a line of its own. */
+export function icsLine(text: string): string {
+  // eslint-disable-next-line no-control-regex
+  return text.replace(/[\u0000-\u001f\u007f\u2028\u2029]+/g, ' ').trim()
+}
+
 export function calendarText(events: EventAttributes[], calName: string): string {
+  calName = icsLine(calName)
   // an empty calendar is still a valid one (ics refuses an empty list)
   if (!events.length) return ['BEGIN:VCALENDAR', 'VERSION:2.0', 'PRODID:-//Wildward//Grow from seed//EN', `X-WR-CALNAME:${calName}`, 'END:VCALENDAR', ''].join('\r\n')
   const { error, value } = createEvents(events, { productId: '-//Wildward//Grow from seed//EN', calName })

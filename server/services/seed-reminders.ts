@@ -7,7 +7,7 @@ import type { AccountRow, YardRow } from '../database/schema'
 import { enqueueJobs, cancelPendingJobs, JobCancelled, type NewJob } from './jobs'
 import { yardAccessLevel } from './yard-access'
 import { seedPlanFor } from './seed-plan'
-import { addDays, isoDate, parseIsoDate } from '#shared/utils/seed-plan'
+import { addDays, isoDate, parseIsoDate } from '#shared/utils/seed-season'
 
 export const SEED_REMINDER_KIND = 'seed-reminder'
 // reminders go out at 13:00 UTC: morning across the Americas
@@ -56,8 +56,8 @@ export async function syncReminders(sub: typeof seedReminderSubscriptions.$infer
   const plan = await seedPlanFor(yard, isoDate(now))
   const today = isoDate(now)
   const wanted: NewJob[] = plan.tasks
-    // an alternative route would only be noise in the inbox; the past needs no reminding
-    .filter((t) => !t.optional && t.date >= today)
+    // an alternative route would only be noise in the inbox; a task whose window has closed needs no reminding
+    .filter((t) => !t.optional && (t.endDate ?? t.date) >= today)
     .map((t) => {
       const at = addDays(parseIsoDate(t.date), -sub.leadDays)
       at.setUTCHours(SEND_HOUR_UTC)
@@ -170,10 +170,12 @@ export async function calendarStatus(userId: number) {
 /** A new address (the old one stops working); the secret is shown this once. */
 export async function newCalendarToken(userId: number): Promise<string> {
   const token = randomBytes(32).toString('base64url')
-  await useDb().transaction(async (tx) => {
+  await withContentionRetry(() => useDb().transaction(async (tx) => {
+    // one new address at a time per user: the account row's lock orders concurrent requests
+    await tx.select({ id: users.id }).from(users).where(eq(users.id, userId)).for('update')
     await tx.update(calendarTokens).set({ revokedAt: new Date() }).where(and(eq(calendarTokens.userId, userId), sql`${calendarTokens.revokedAt} is null`))
     await tx.insert(calendarTokens).values({ userId, tokenHash: hashToken(token) })
-  })
+  }))
   return token
 }
 

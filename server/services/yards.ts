@@ -1,10 +1,11 @@
-import { and, eq, or, desc, inArray, sql } from 'drizzle-orm'
+import { and, eq, sql } from 'drizzle-orm'
 import { yards, yardMembers, users } from '../database/schema'
 import { emptyYardDocument, type YardDocument } from '#shared/schemas/yard-document'
 import type { CreateYardBody, UpdateYardBody } from '#shared/schemas/yard'
 import type { AccountRow, YardRow } from '../database/schema'
 import type { YardAccess } from './yard-access'
 import { recordPledgedShares } from './drives'
+import { yardListQuery } from './yard-list'
 
 /** The columns kept beside the document (for queries and lists) follow the document. */
 function columnsFrom(doc: YardDocument) {
@@ -68,18 +69,10 @@ export async function updateYard(yard: YardRow, access: YardAccess, body: Update
 
 /** Yards the user owns or is a member of, newest first (without their documents). */
 export async function listYardsFor(user: AccountRow) {
-  const db = useDb()
-  const memberYardIds = db.select({ id: yardMembers.yardId }).from(yardMembers).where(eq(yardMembers.userId, user.id))
-  const rows = await db.select({
-    id: yards.id, name: yards.name, region: yards.region, zone: yards.zone, units: yards.units, version: yards.version,
-    ownerId: yards.ownerId, ownerName: users.name, updatedAt: yards.updatedAt, createdAt: yards.createdAt,
-    memberRole: yardMembers.role,
-    plantings: sql<number>`coalesce(json_length(${yards.document}, '$.plantings'), 0)`,
-  }).from(yards)
-    .innerJoin(users, eq(users.id, yards.ownerId))
-    .leftJoin(yardMembers, and(eq(yardMembers.yardId, yards.id), eq(yardMembers.userId, user.id)))
-    .where(or(eq(yards.ownerId, user.id), inArray(yards.id, memberYardIds)))
-    .orderBy(desc(yards.updatedAt))
+  const seen = new Set<number>()
+  // a yard listed as owned is not listed again should its owner also hold a member row
+  const rows = (await yardListQuery(useDb(), user.id)).filter((r) => !seen.has(r.id) && !!seen.add(r.id))
+  rows.sort((a, b) => new Date(b.updatedAt).getTime() - new Date(a.updatedAt).getTime() || b.id - a.id)
   return rows.map(({ memberRole, ...r }) => ({
     ...r,
     plantings: Number(r.plantings),

@@ -24,3 +24,13 @@ export function insertedId(rows: { id: number }[]): number {
   if (id === undefined) throw new Error('insert returned no id')
   return id
 }
+
+/** `term` with LIKE's own wildcards (% _) and escape (\) taken literally. */
+export function escapeLike(term: string): string {
+  return term.replace(/[\\%_]/g, (c) => `\\${c}`)
+}
+
+/** A LIKE pattern matching `term` anywhere. */
+export function containsPattern(term: string): string {
+  return `%${escapeLike(term)}%`
+}

@@ -12,9 +12,14 @@ export function fieldErrors(error: z.ZodError): Record<string, string> {
 }
 
 export function badRequest(fields: Record<string, string>, message?: string): never {
+  throw invalidInput(fields, message)
+}
+
+/** The 400 that badRequest throws, for `throw invalidInput(…)` where control flow must see the throw. */
+export function invalidInput(fields: Record<string, string>, message?: string, status = 400) {
   const first = Object.entries(fields)[0]
-  throw createError({
-    status: 400,
+  return createError({
+    status,
     message: message ?? (first ? `${first[0] === '_' ? 'Input' : first[0]}: ${first[1]}` : 'Invalid input'),
     data: { fields },
   })
@@ -39,7 +44,32 @@ export async function readBodyWith<S extends z.ZodType>(event: H3Event, schema: 
   } catch {
     badRequest({ _: 'The request body is not valid JSON' })
   }
+  // a lone UTF-16 surrogate can only come in as a \u escape: look for one only then
+  if (raw && ESCAPED_SURROGATE.test(raw)) {
+    const path = illFormedStringPath(body)
+    if (path) badRequest({ [path]: 'Contains a broken character (a lone UTF-16 surrogate)' })
+  }
   return check(schema, body ?? {}, 'body')
+}
+
+const ESCAPED_SURROGATE = /\\u[dD][89a-fA-F]/
+
+/** The path of the first string (value or key) that is not well-formed Unicode, or null. */
+export function illFormedStringPath(value: unknown, path: string[] = []): string | null {
+  if (typeof value === 'string') return value.isWellFormed() ? null : (path.join('.') || '_')
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) {
+      const found = illFormedStringPath(value[i], [...path, String(i)])
+      if (found) return found
+    }
+  } else if (value && typeof value === 'object') {
+    for (const [k, v] of Object.entries(value)) {
+      if (!k.isWellFormed()) return [...path, '_'].join('.')
+      const found = illFormedStringPath(v, [...path, k])
+      if (found) return found
+    }
+  }
+  return null
 }
 
 export function readQueryWith<S extends z.ZodType>(event: H3Event, schema: S): z.infer<S> {

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { email } from './common'
+import { email, isoDate } from './common'
 
 // Sharing, advice requests, site visits and recommendations: bodies and the recommendation format.
 
@@ -24,13 +24,14 @@ export const adviceQueueQuery = z.object({
 export const assignBody = z.object({ advisorId: z.number().int().positive({ message: 'Choose an advisor' }) })
 export const closeRequestBody = z.object({ note: z.string().trim().max(500).optional() })
 
-const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date such as 2026-05-14')
 
+// a TEXT column holds 65,535 bytes: 16,000 characters fit even when each takes utf8mb4's 4 bytes
+const visitNotes = z.string().max(16_000, 'At most 16,000 characters')
 export const visitBody = z.object({
-  visitedOn: isoDay,
-  notes: z.string().max(20_000).default(''),
+  visitedOn: isoDate,
+  notes: visitNotes.default(''),
 })
-export const visitUpdateBody = z.object({ notes: z.string().max(20_000) })
+export const visitUpdateBody = z.object({ notes: visitNotes })
 
 const coord = z.number().min(-20_000).max(20_000)
 export const pinBody = z.object({ x: coord, y: coord, comment: z.string().trim().min(1, 'Write a comment for the pin').max(1000) })

@@ -1,13 +1,13 @@
 import { z } from 'zod'
+import { isoDate } from './common'
 
 // Pledge drives, pledges, the dashboard's table and bulk mail.
 export const SHARE_KIND_OPTIONS = ['count', 'area', 'volume'] as const
-const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date such as 2026-05-14')
 
 export const driveBody = z.object({
   name: z.string().trim().min(1, 'Name the drive').max(160),
-  startsOn: isoDay,
-  endsOn: isoDay,
+  startsOn: isoDate,
+  endsOn: isoDate,
   goal: z.number().min(0.05, 'A goal between 0.05 and 1').max(1, 'A goal between 0.05 and 1').default(0.7),
   certifies: z.enum(SHARE_KIND_OPTIONS).default('area'),
   target: z.number().int().min(1, 'Aim for at least one yard').max(1_000_000),

@@ -1,12 +1,11 @@
 import { z } from 'zod'
+import { isoDate } from './common'
 
 // Bodies and queries of the grow-from-seed routes (the page validates its forms with the same schemas).
 
-export const isoDay = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'Use YYYY-MM-DD')
-
 export const seedPlanQuery = z.object({
   // for planning ahead (and tests): the day the coming season is counted from; default today
-  today: isoDay.optional(),
+  today: isoDate.optional(),
 })
 
 export const speciesSetting = z.object({

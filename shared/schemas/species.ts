@@ -74,7 +74,7 @@ export type ExportQuery = z.infer<typeof exportQuery>
 export const CSV_COLUMNS = [
   'scientificName', 'region', 'status', 'commonName', 'layer', 'height', 'spread', 'spacing', 'sun', 'moisture', 'soil',
   'bloomMonths', 'minZone', 'toxicity', 'propagatedBySeed', 'coldStratification', 'coldMoistDays', 'seedNeedsLight',
-  'scarify', 'hotWaterSoak', 'seedsPerPound', 'seedlingsPerPot', 'commercialAvailability', 'notes', 'source',
+  'scarify', 'hotWaterSoak', 'sowFresh', 'seedsPerPound', 'seedlingsPerPot', 'commercialAvailability', 'notes', 'source',
 ] as const
 /** Columns the export adds for reading that the import accepts and ignores. */
 export const CSV_READ_ONLY_COLUMNS = ['estimated', 'origin', 'usdaSymbol'] as const

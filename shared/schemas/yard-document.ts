@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { firstSelfIntersection, type Point } from '../utils/polygon'
 import { regionCode, hardinessZone, monthDay } from './common'
+import { frostOrderOk } from '../utils/seed-season'
 
 // The yard document: our own JSON format (format tag "wildward.yard/1"), stored per yard and used for export
 // and import. All lengths in metres, x to the right and y down, origin at the lot's top-left.
@@ -9,6 +10,13 @@ export const YARD_FORMAT = 'wildward.yard/1'
 export const MAX_PLANTINGS = 5000
 export const MAX_AREAS = 2000
 const MAX_VERTICES = 1000
+/**
+ * Vertices in a whole document (lot, areas, planting outlines, lines): bounds the work of checking and scoring
+ * one request. A hand-drawn yard has a few thousand.
+ */
+export const MAX_DOCUMENT_VERTICES = 20_000
+/** The largest yard document a request may carry, in bytes of JSON (well under MariaDB's max_allowed_packet). */
+export const MAX_DOCUMENT_BYTES = 4 * 1024 * 1024
 // a lot larger than about 20 km across is a mistake in units, not a yard
 const MAX_COORD = 20_000
 
@@ -79,12 +87,17 @@ export const yardBackdrop = z.object({
   locked: z.boolean().default(false),
 })
 
+/** A yard's frost dates: each a real day, and the last spring frost before the first fall frost. */
+export const frostDatesSchema = z.object({ lastSpring: monthDay.nullable().optional(), firstFall: monthDay.nullable().optional() })
+  .refine((f) => !f.lastSpring || !f.firstFall || frostOrderOk(f.lastSpring, f.firstFall),
+    { path: ['firstFall'], message: 'The first fall frost comes after the last spring frost: check both dates' })
+
 const yardDocumentBase = z.object({
   format: z.literal(YARD_FORMAT).default(YARD_FORMAT),
   name: z.string().trim().max(120).optional(),
   region: regionCode.optional(),
   zone: hardinessZone.nullable().optional(),
-  frost: z.object({ lastSpring: monthDay.nullable().optional(), firstFall: monthDay.nullable().optional() }).optional(),
+  frost: frostDatesSchema.optional(),
   units: z.enum(['ft', 'm']).default('ft'),
   boundary: z.array(point).max(MAX_VERTICES).refine((pts) => pts.length === 0 || pts.length >= 3, 'A lot outline needs at least 3 points')
     .refine((pts) => pts.length === 0 || firstSelfIntersection(pts as Point[]) < 0, 'The lot outline crosses itself or has no area')
@@ -122,7 +135,23 @@ export function duplicateIdIssues(doc: Pick<YardDocument, 'areas' | 'plantings' 
 }
 
 /** Checks across elements, on a document whose fields are each well formed: ids, outlines, point or area. */
+/** The vertices a document holds, summed over every outline and line. */
+export function documentVertices(doc: unknown): number {
+  if (!isPlain(doc)) return 0
+  let total = Array.isArray(doc.boundary) ? doc.boundary.length : 0
+  for (const list of [doc.areas, doc.plantings, doc.lines]) {
+    if (!Array.isArray(list)) continue
+    for (const item of list) if (isPlain(item) && Array.isArray(item.points)) total += item.points.length
+  }
+  return total
+}
+
+const tooManyVertices = (vertices: number) => `A yard has at most ${MAX_DOCUMENT_VERTICES.toLocaleString('en-US')} outline points in all (this one has ${vertices.toLocaleString('en-US')})`
+
 function documentIssues(doc: z.output<typeof yardDocumentBase>): ElementIssue[] {
+  const vertices = documentVertices(doc)
+  // checked before any outline is: the crossing checks below are what the bound keeps small
+  if (vertices > MAX_DOCUMENT_VERTICES) return [{ path: [], message: tooManyVertices(vertices) }]
   const issues = duplicateIdIssues(doc)
   for (const [list, items] of [['areas', doc.areas], ['plantings', doc.plantings]] as const) {
     items.forEach((item, i) => {
@@ -231,6 +260,12 @@ function fastDocument(value: unknown): z.output<typeof yardDocumentBase> | null 
  * (`Planting "p4": …`), so a 400 for a yard of a thousand plantings says which one is wrong.
  */
 export const yardDocument = z.custom<z.input<typeof yardDocumentShape>>(() => true).transform((value, ctx): z.output<typeof yardDocumentShape> => {
+  // counted on the raw value first, so an oversized document never reaches zod's per-point checks
+  const vertices = documentVertices(value)
+  if (vertices > MAX_DOCUMENT_VERTICES) {
+    ctx.addIssue({ code: 'custom', path: [], input: value, message: tooManyVertices(vertices) })
+    return z.NEVER
+  }
   const fast = fastDocument(value)
   if (fast) return fast
   const result = yardDocumentShape.safeParse(value)

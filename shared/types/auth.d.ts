@@ -9,6 +9,10 @@ declare module '#auth-utils' {
     name: string
     role: Role
   }
+  // server-only part of the sealed cookie: the token of the session row (server/services/sessions.ts)
+  interface SecureSessionData {
+    token: string
+  }
 }
 
 export {}

@@ -49,6 +49,8 @@ export interface SpeciesDetails extends SpeciesFacts {
   seedNeedsLight: boolean | null
   scarify: boolean
   hotWaterSoak: boolean
+  /** seed that dies when dried: sown in fall as soon as collected (the catalogue's flag or its default list) */
+  sowFresh?: boolean
   seedsPerPound: number | null
   seedlingsPerPot: number | null
   commercialAvailability: string | null

@@ -6,6 +6,7 @@ import { SUN, SOIL, MOISTURE } from '../schemas/yard-document'
 import { CSV_COLUMNS, CSV_READ_ONLY_COLUMNS, IMPORT_MAX_ROWS, SOURCE_PATTERN, type CsvColumn, type ImportError, type OverrideField } from '../schemas/species'
 import { REGIONS } from './regions'
 import { zoneIndex, roundToCm } from './catalogue-rules'
+import { CSV_FORMULA_START } from './csv'
 
 export type Parsed = { value: unknown } | { error: string }
 
@@ -71,7 +72,7 @@ export function parseCell(column: OverrideField, raw: string): Parsed {
       const s = v.toLowerCase()
       return ['none', 'slight', 'moderate', 'severe'].includes(s) ? { value: s } : { error: 'Toxicity must be none, slight, moderate or severe' }
     }
-    case 'propagatedBySeed': case 'coldStratification': case 'seedNeedsLight': case 'scarify': case 'hotWaterSoak':
+    case 'propagatedBySeed': case 'coldStratification': case 'seedNeedsLight': case 'scarify': case 'hotWaterSoak': case 'sowFresh':
       return parseBool(v)
     case 'coldMoistDays': return parseInteger(v, 0, 365)
     case 'seedsPerPound': return parseInteger(v, 1, 1e9)
@@ -143,8 +144,8 @@ export function readCatalogueCsv(text: string): { entries: CsvEntry[]; errors: I
 
 /** CSV text from rows keyed by column name (export). */
 export function catalogueToCsv(columns: readonly string[], rows: Record<string, unknown>[]): string {
-  // escapeFormulae: a cell starting with = + @ is not run as a formula by a spreadsheet
-  return Papa.unparse({ fields: [...columns], data: rows.map((r) => columns.map((c) => formatCell(r[c]))) }, { escapeFormulae: /^[=+@\t\r]/ })
+  // escapeFormulae: a cell starting with = + - @ is not run as a formula by a spreadsheet
+  return Papa.unparse({ fields: [...columns], data: rows.map((r) => columns.map((c) => formatCell(r[c]))) }, { escapeFormulae: CSV_FORMULA_START })
 }
 
 function formatCell(v: unknown): string {

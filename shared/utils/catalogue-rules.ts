@@ -5,6 +5,7 @@
 import type { Layer, Moisture, RegionStatus, Soil, Sun } from '../types/species'
 import { REGIONS } from './regions'
 import { nameKey } from './species-name'
+import { seedlingsPerPotFor } from './seed-size'
 
 export const USDA = 'USDA PLANTS'
 export const COORDINATOR = 'coordinator'
@@ -344,12 +345,9 @@ export function defaultSeedCoat(family: string | null, genus: string | null, lay
   return { scarify: legume, hotWaterSoak: (legume && layer !== 'ground') || genus === 'Ceanothus' }
 }
 
-/** Seedlings one 10 cm (4-inch) pot gives when sown and pricked out: perennials 12, shrubs 6, trees 3; big seed fewer. */
+/** Seedlings one 10 cm (4-inch) pot gives when sown and pricked out: the seed-size rule (shared/utils/seed-size.ts). */
 export function defaultSeedlingsPerPot(layer: Layer, seedsPerPound: number | null): number {
-  const base = layer === 'ground' ? 12 : layer === 'shrub' ? 6 : 3
-  if (seedsPerPound !== null && seedsPerPound < 1_000) return 1
-  if (seedsPerPound !== null && seedsPerPound < 10_000) return Math.max(1, Math.round(base / 3))
-  return base
+  return seedlingsPerPotFor(layer, seedsPerPound)
 }
 
 /** Turf grasses whose area is lawn (common practice list of North American lawn species, native buffalograss included). */
@@ -406,6 +404,8 @@ export interface CatalogueEntry {
   seedNeedsLight: boolean | null
   scarify: boolean
   hotWaterSoak: boolean
+  /** seed that dies when dried: set only by a coordinator; absent → the default list (shared/utils/seed-fresh.ts) */
+  sowFresh?: boolean | null
   seedsPerPound: number | null
   seedlingsPerPot: number | null
   commercialAvailability: string | null

@@ -49,7 +49,16 @@ export function applyRecommendation(doc: YardDocument, change: RecommendationCha
 }
 
 /** One line in words, for lists and mails. */
+/** The longest summary a recommendation keeps (its column's length). */
+export const RECOMMENDATION_SUMMARY_MAX = 400
+
+/** One line saying what a recommendation changes, at most RECOMMENDATION_SUMMARY_MAX characters. */
 export function describeRecommendation(doc: YardDocument, change: RecommendationChange): string {
+  const full = describeInFull(doc, change)
+  return full.length <= RECOMMENDATION_SUMMARY_MAX ? full : `${full.slice(0, RECOMMENDATION_SUMMARY_MAX - 1).replace(/[\ud800-\udbff]$/, '')}…`
+}
+
+function describeInFull(doc: YardDocument, change: RecommendationChange): string {
   const label = (id: string) => {
     const p = doc.plantings.find((x) => x.id === id)
     return p ? (p.label || p.species || 'the unidentified plant') : id

@@ -1,4 +1,4 @@
-// Every route file under server/api is listed with the status each kind of user gets; a route missing from
+// Every route file under server/api (and the non-API ones under server/routes, as routes/…) is listed with the status each kind of user gets; a route missing from
 // the table fails the test. Rows live in tests/api/access/<domain>.ts.
 import { describe, it, expect, beforeAll } from 'vitest'
 import { readdirSync, statSync } from 'node:fs'
@@ -10,18 +10,20 @@ const modules = import.meta.glob<{ rows: AccessRow[] }>('./access/*.ts', { eager
 const ROWS = Object.entries(modules).filter(([f]) => !f.endsWith('types.ts')).flatMap(([, m]) => m.rows)
 
 const API_DIR = join(import.meta.dirname, '..', '..', 'server', 'api')
-function routeFiles(dir: string): string[] {
+const ROUTES_DIR = join(import.meta.dirname, '..', '..', 'server', 'routes')
+function filesUnder(dir: string, base: string): string[] {
   return readdirSync(dir).flatMap((name) => {
     const p = join(dir, name)
-    return statSync(p).isDirectory() ? routeFiles(p) : [relative(API_DIR, p)]
+    return statSync(p).isDirectory() ? filesUnder(p, base) : [relative(base, p)]
   })
 }
+const routeFiles = () => [...filesUnder(API_DIR, API_DIR), ...filesUnder(ROUTES_DIR, ROUTES_DIR).map((f) => `routes/${f}`)]
 
 const PERSONAS: Persona[] = ['anonymous', 'owner', 'otherHomeowner', 'advisor', 'coordinator']
 
 describe('access matrix', () => {
   it('lists every route file, and only existing ones', () => {
-    const files = routeFiles(API_DIR).sort()
+    const files = routeFiles().sort()
     const listed = new Set(ROWS.map((r) => r.file))
     expect(files.filter((f) => !listed.has(f)), 'route files missing from the access matrix').toEqual([])
     expect([...listed].filter((f) => !files.includes(f)), 'matrix rows without a route file').toEqual([])

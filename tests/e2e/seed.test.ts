@@ -1,6 +1,6 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest'
 import { launch, newContext, outsideRequests, signIn, type Browser } from '../support/browser'
-import { newHomeowner } from '../support/http'
+import { demo, newHomeowner } from '../support/http'
 import { seedYard } from '../api/seed/fixtures'
 
 let browser: Browser
@@ -71,6 +71,44 @@ describe('grow from seed in the browser', () => {
     await expect.poll(() => page.locator('[data-test=reminders-scheduled]').textContent()).toMatch(/\d+ reminders waiting/)
     await page.screenshot({ path: '/tmp/seed-page.png', fullPage: true })
 
+    expect(outsideRequests(requests)).toEqual([])
+    await context.close()
+  })
+
+  it('plans the demo yard as a gardener would: asters sown outdoors in fall for winter cold, the oak fresh and deep, no lawn grass', async () => {
+    const home = await demo('homeowner')
+    const yards = (await home.get('/api/yards')).body.items as Array<{ id: number; name: string }>
+    const yard = yards.find((y) => y.name === 'Larch Lane front and back')!
+    const { context, requests } = await newContext(browser, { viewport: { width: 1024, height: 768 } })
+    const page = await context.newPage()
+    await signIn(page, 'homeowner@example.org')
+    // planned on 1 December 2026, so the season is 2027 (frost dates 04-28 and 10-14)
+    await page.goto(`/yards/${yard.id}/seeds`)
+    const rows = page.locator('[data-test=seed-row]')
+    await expect.poll(() => rows.count()).toBeGreaterThan(0)
+
+    // New England aster drift: USDA PLANTS records no cold need and no seed size → sown outdoors in late fall to early
+    // winter (winter gives the cold period), under a thin cover of coarse sand (common practice)
+    const aster = page.locator('[data-test=seed-row][data-species="Symphyotrichum novae-angliae"]')
+    expect(await aster.locator('[data-test=sow-when]').getAttribute('data-route')).toBe('outdoor-winter')
+    expect(await aster.locator('[data-test=sow-when]').textContent()).toMatch(/late fall to early winter/)
+    expect(await aster.locator('[data-test=treatment]').textContent()).toMatch(/winter cold given.*(surface-sown|coarse sand)/)
+    expect(await aster.locator('[data-test=grow]').isChecked()).toBe(true)
+    await aster.locator('summary').click()
+    expect(await aster.locator('details').textContent()).toMatch(/not recorded/)
+
+    // white oak: acorns sown fresh in fall, 2–3 cm deep under hardware cloth (Agriculture Handbook 727, Quercus)
+    const oak = page.locator('[data-test=seed-row][data-species="Quercus alba"]')
+    expect(await oak.locator('[data-test=sow-when]').getAttribute('data-route')).toBe('fresh')
+    expect(await oak.locator('[data-test=treatment]').textContent()).toMatch(/sown fresh.*2–3 cm deep, under hardware cloth/)
+
+    // the lawn's Kentucky bluegrass (USDA: native and introduced in Ohio) and the invasive barberry are not offered
+    expect(await page.locator('[data-test=seed-row][data-species="Poa pratensis"]').count()).toBe(0)
+    expect(await page.locator('[data-test=seed-row][data-species="Berberis thunbergii"]').count()).toBe(0)
+    expect(await page.locator('[data-test=timeline-task][data-kind=sow-fresh]').count()).toBeGreaterThan(0)
+    await page.screenshot({ path: '/tmp/seed-demo-tablet.png', fullPage: true })
+    await page.setViewportSize({ width: 1280, height: 800 })
+    await page.screenshot({ path: '/tmp/seed-demo-desktop.png', fullPage: true })
     expect(outsideRequests(requests)).toEqual([])
     await context.close()
   })

@@ -8,6 +8,9 @@ export interface Reply<T = any> { status: number; body: T; headers: Headers }
 export class Client {
   private cookies = new Map<string, string>()
 
+  /** `base` is another server (the scale-out test's proxy); the built test server by default. */
+  constructor(private base: string = BASE_URL) {}
+
   async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<Reply<T>> {
     const init: RequestInit = { method, headers: { ...headers }, redirect: 'manual' }
     if (this.cookies.size) (init.headers as Record<string, string>).cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ')
@@ -18,7 +21,7 @@ export class Client {
         ;(init.headers as Record<string, string>)['content-type'] = 'application/json'
       }
     }
-    const res = await fetch(BASE_URL + path, init)
+    const res = await fetch(this.base + path, init)
     for (const c of res.headers.getSetCookie()) {
       const [pair] = c.split(';')
       const i = pair!.indexOf('=')
@@ -32,6 +35,9 @@ export class Client {
     try { parsed = text ? JSON.parse(text) : null } catch {}
     return { status: res.status, body: parsed as T, headers: res.headers }
   }
+
+  /** The Cookie header this client sends, for a raw fetch. */
+  cookieHeader() { return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') }
 
   get<T = any>(path: string) { return this.request<T>('GET', path) }
   post<T = any>(path: string, body?: unknown) { return this.request<T>('POST', path, body ?? {}) }
@@ -48,16 +54,16 @@ export class Client {
 
 let counter = 0
 /** A fresh homeowner account with a unique e-mail. */
-export async function newHomeowner(prefix = 'user') {
-  const c = new Client()
+export async function newHomeowner(prefix = 'user', base = BASE_URL) {
+  const c = new Client(base)
   const email = `${prefix}-${Date.now()}-${process.pid}-${++counter}@example.test`
   const r = await c.post('/api/auth/register', { email, name: `Test ${prefix}`, password: 'a-long-test-password' })
   if (r.status !== 201) throw new Error(`register failed: ${r.status} ${JSON.stringify(r.body)}`)
   return { client: c, email, user: r.body.user as { id: number; email: string; role: string } }
 }
 
-export async function demo(role: 'homeowner' | 'advisor' | 'coordinator') {
-  const c = new Client()
+export async function demo(role: 'homeowner' | 'advisor' | 'coordinator', base = BASE_URL) {
+  const c = new Client(base)
   await c.login(`${role}@example.org`)
   return c
 }

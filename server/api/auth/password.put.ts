@@ -5,6 +5,6 @@ import { changePasswordBody } from '#shared/schemas/auth'
 export default defineEventHandler(async (event) => {
   const body = await readBodyWith(event, changePasswordBody)
   const user = await requireUser(event)
-  await changePassword(user, body.currentPassword, body.newPassword)
+  await changePassword(event, user, body.currentPassword, body.newPassword)
   return { ok: true }
 })

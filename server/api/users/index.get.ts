@@ -8,7 +8,8 @@ const PAGE_SIZE = 50
 export default defineEventHandler(async (event) => {
   const { q, page } = readQueryWith(event, usersQuery)
   await requireRole(event, 'coordinator')
-  const where = q ? or(like(users.email, `%${q}%`), like(users.name, `%${q}%`)) : undefined
+  const pattern = q ? containsPattern(q) : ''
+  const where = q ? or(like(users.email, pattern), like(users.name, pattern)) : undefined
   const db = useDb()
   const [items, [total]] = await Promise.all([
     db.select({ id: users.id, email: users.email, name: users.name, role: users.role, createdAt: users.createdAt })

@@ -5,7 +5,8 @@ import { updateYard } from '../../services/yards'
 
 export default defineEventHandler(async (event) => {
   const { id } = readParamsWith(event, idParam)
-  const body = await readBodyWith(event, updateYardBody)
+  // access before the (document-sized) body
   const { yard, access } = await requireYardAccess(event, id, 'edit')
+  const body = await readBodyWith(event, updateYardBody)
   return updateYard(yard, access, body)
 })

@@ -3,8 +3,9 @@ import { createYardBody } from '#shared/schemas/yard'
 import { createYard } from '../../services/yards'
 
 export default defineEventHandler(async (event) => {
-  const body = await readBodyWith(event, createYardBody)
+  // the session before the (document-sized) body
   const user = await requireUser(event)
+  const body = await readBodyWith(event, createYardBody)
   setResponseStatus(event, 201)
   return createYard(user, body)
 })

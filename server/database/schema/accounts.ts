@@ -1,4 +1,4 @@
-import { mysqlTable, varchar, mysqlEnum, timestamp, char, index, uniqueIndex } from 'drizzle-orm/mysql-core'
+import { mysqlTable, varchar, mysqlEnum, timestamp, char, index, uniqueIndex, int } from 'drizzle-orm/mysql-core'
 import { id, ref, timestamps } from './columns'
 
 import { ROLE_NAMES } from '../../../shared/types/roles'
@@ -24,13 +24,26 @@ export const passwordResetTokens = mysqlTable('password_reset_tokens', {
   ...timestamps,
 }, (t) => [uniqueIndex('password_reset_tokens_hash_unique').on(t.tokenHash), index('password_reset_tokens_user_idx').on(t.userId)])
 
-/** Failed sign-ins, counted per e-mail and per address over a window (in the database: several app instances). */
-export const loginFailures = mysqlTable('login_failures', {
-  id: id(),
-  email: varchar('email', { length: 254 }).notNull(),
-  address: varchar('address', { length: 64 }).notNull(),
-  at: timestamp('at', { fsp: 3 }).notNull().defaultNow(),
-}, (t) => [index('login_failures_email_idx').on(t.email, t.at), index('login_failures_address_idx').on(t.address, t.at)])
+/**
+ * Signed-in sessions, so that they can end on the server: the sealed cookie carries a random token, this table
+ * its sha-256. Sign-out deletes the row; a password change or reset deletes the account's other rows.
+ */
+export const sessions = mysqlTable('sessions', {
+  tokenHash: char('token_hash', { length: 64 }).primaryKey(),
+  userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  createdAt: timestamp('created_at', { fsp: 3 }).notNull().defaultNow(),
+  lastSeenAt: timestamp('last_seen_at', { fsp: 3 }).notNull().defaultNow(),
+}, (t) => [index('sessions_user_idx').on(t.userId)])
+
+/**
+ * Sign-in attempts per window, counted atomically (INSERT … ON DUPLICATE KEY UPDATE on one row): one row per
+ * e-mail and address pair, one per address. The key is a sha-256 so e-mails are not kept here.
+ */
+export const loginAttempts = mysqlTable('login_attempts', {
+  keyHash: char('key_hash', { length: 64 }).primaryKey(),
+  attempts: int('attempts').notNull(),
+  windowStart: timestamp('window_start', { fsp: 3 }).notNull().defaultNow(),
+})
 
 /** An account as stored (the type every service and access helper takes). */
 export type AccountRow = typeof users.$inferSelect

@@ -28,4 +28,13 @@ export const rows: AccessRow[] = [
     expect: COORDINATOR,
   },
   { file: 'admin/seed-reminders.get.ts', method: 'GET', request: () => ({ path: '/api/admin/seed-reminders' }), expect: COORDINATOR },
+  // non-API routes: the calendar feed's secret address is its own credential (anyone holding it reads it);
+  // the unsubscribe page changes nothing on GET, and a link that names no subscription is a 404 for everyone
+  {
+    file: 'routes/calendar/[token]/seeds.ics.get.ts', method: 'GET',
+    request: async (c) => ({ path: new URL((await c.owner.post('/api/calendar-feed')).body.url).pathname }),
+    expect: { anonymous: 200, owner: 200, otherHomeowner: 200, advisor: 200, coordinator: 200 },
+  },
+  { file: 'routes/seed-reminders/unsubscribe.get.ts', method: 'GET', request: () => ({ path: '/seed-reminders/unsubscribe?token=' + 'x'.repeat(32) }), expect: { anonymous: 200, owner: 200, otherHomeowner: 200, advisor: 200, coordinator: 200 } },
+  { file: 'routes/seed-reminders/unsubscribe.post.ts', method: 'POST', request: () => ({ path: '/seed-reminders/unsubscribe?token=' + 'x'.repeat(32) }), expect: { anonymous: 404, owner: 404, otherHomeowner: 404, advisor: 404, coordinator: 404 } },
 ]

@@ -11,7 +11,7 @@ export interface AccessContext {
 }
 
 export interface AccessRow {
-  /** the route file under server/api, e.g. 'yards/[id].put.ts' */
+  /** the route file under server/api, e.g. 'yards/[id].put.ts', or under server/routes as 'routes/…' */
   file: string
   method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
   /** the request to make as each persona (a fresh one per persona) */

@@ -72,5 +72,5 @@ describe('bulk mail to pledgers', () => {
     expect(Number(row.runners)).toBeGreaterThanOrEqual(2)
     const [[deliveries]] = await db.query('SELECT COUNT(*) AS n FROM drive_mail_deliveries WHERE mailing_id = ?', [id]) as unknown as [[{ n: number }]]
     expect(Number(deliveries.n)).toBe(recipients)
-  })
+  }, 90_000)
 })

@@ -4,7 +4,8 @@ import { describe, it, expect, beforeAll } from 'vitest'
 import ical from 'node-ical'
 import { Client, demo, newHomeowner } from '../../support/http'
 import { seedYard } from './fixtures'
-import { GRAMS_PER_POUND, daysBetween } from '#shared/utils/seed-plan'
+import { daysBetween } from '#shared/utils/seed-season'
+import { GRAMS_PER_POUND } from '#shared/utils/seed-size'
 
 let owner: Awaited<ReturnType<typeof newHomeowner>>
 let yardId: number
@@ -30,8 +31,10 @@ describe('GET /api/yards/[id]/seed-plan', () => {
       // pots = ceil(plants × (1 + margin) ÷ seedlings per pot) (the seed-plan rule, issue 6)
       expect(s.pots).toBe(Math.ceil(s.plantsNeeded * 1.2 / s.seedlingsPerPot - 1e-9))
       for (const k of ['sowFrom', 'sowTo', 'fridgeStart', 'plantOut', 'potUp']) if (s[k] !== null) expect(s[k]).toMatch(/^\d{4}-\d{2}-\d{2}$/)
-      // six weeks before the first fall frost at the latest (common practice)
-      expect(daysBetween(s.plantOutBy, plan.season.firstFallFrost)).toBeGreaterThanOrEqual(42)
+      // plant out from six to two weeks before the first fall frost (common practice), never before pot-up
+      expect(daysBetween(s.plantOut, plan.season.firstFallFrost)).toBeLessThanOrEqual(42)
+      expect(daysBetween(s.plantOutBy, plan.season.firstFallFrost)).toBe(14)
+      expect(s.potUp <= s.plantOut && s.germination <= s.potUp).toBe(true)
       if (s.coldMoistDays > 0 && s.sowTo) expect(daysBetween(s.sowTo, plan.season.lastSpringFrost)).toBeGreaterThanOrEqual(s.coldMoistDays)
       if (s.grams !== null) {
         // grams from USDA seeds per pound, 1 lb = 453.59237 g (NIST Handbook 44)
@@ -43,8 +46,50 @@ describe('GET /api/yards/[id]/seed-plan', () => {
     expect(plan.totals.pots).toBe(plan.species.filter((s: any) => s.grow).reduce((n: number, s: any) => n + s.pots, 0))
   })
 
+  it('keeps the season after the last spring frost: pot-up and plant-out stay, in the plan and the calendar', async () => {
+    // SEED_DOC frosts: 04-25 and 10-15; on 2027-05-01 the 2027 season runs until 2027-10-15
+    const plan = (await owner.client.get(`/api/yards/${yardId}/seed-plan?today=2027-05-01`)).body
+    expect(plan.season).toMatchObject({ year: 2027, ends: '2027-10-15' })
+    const kinds = new Set(plan.tasks.map((t: any) => t.kind))
+    expect(kinds.has('pot-up') && kinds.has('plant-out')).toBe(true)
+    const ics = await owner.client.request('GET', `/api/yards/${yardId}/seed-plan.ics?today=2027-05-01`)
+    expect(ics.body as string).toMatch(/plant-out:2027-09-03/)
+    // the day after the first fall frost: the next season
+    expect((await owner.client.get(`/api/yards/${yardId}/seed-plan?today=2027-10-16`)).body.season.year).toBe(2028)
+  })
+
+  it('offers only natives: not "native and introduced" grasses, introduced or invasive plants', async () => {
+    const doc = { format: 'wildward.yard/1', units: 'm', zone: '6a', frost: { lastSpring: '04-25', firstFall: '10-15' }, boundary: [[0, 0], [20, 0], [20, 30], [0, 30]],
+      plantings: [
+        // USDA PLANTS native status L48(I,N): native and introduced
+        { id: 'p1', species: 'Poa pratensis', x: 1, y: 1, count: 5 },
+        { id: 'p2', species: 'Phragmites australis', x: 2, y: 2, count: 5 },
+        { id: 'p3', species: 'Bromus inermis', x: 3, y: 3, count: 5 },
+        { id: 'p4', species: 'Berberis thunbergii', x: 4, y: 4, count: 5 },
+        { id: 'p5', species: 'Asclepias tuberosa', x: 5, y: 5, count: 5 },
+      ] }
+    const r = await owner.client.post('/api/yards', { name: 'Natives only', region: 'US-OH', document: doc })
+    expect(r.status).toBe(201)
+    const plan = (await owner.client.get(`/api/yards/${r.body.id}/seed-plan?today=2026-12-01`)).body
+    expect(plan.species.map((s: any) => s.scientificName)).toEqual(['Asclepias tuberosa'])
+  })
+
+  it('refuses frost dates that cannot be, naming the field', async () => {
+    const base = { format: 'wildward.yard/1', units: 'm', zone: '6a', boundary: [], plantings: [] }
+    const bad = await owner.client.post('/api/yards', { name: 'Bad frost', region: 'US-OH', document: { ...base, frost: { lastSpring: '02-30', firstFall: '10-15' } } })
+    expect(bad.status).toBe(400)
+    expect(Object.keys(bad.body.data.fields).join(' ')).toMatch(/frost\.lastSpring/)
+    const order = await owner.client.post('/api/yards', { name: 'Bad frost', region: 'US-OH', document: { ...base, frost: { lastSpring: '10-20', firstFall: '04-01' } } })
+    expect(order.status).toBe(400)
+    expect(Object.keys(order.body.data.fields).join(' ')).toMatch(/frost\.firstFall/)
+  })
+
   it('answers 400 for a malformed date and 404 for a yard that does not exist', async () => {
     expect((await owner.client.get(`/api/yards/${yardId}/seed-plan?today=2026-13-01`)).status).toBe(400)
+    // no 30 February, and no 29 February outside leap years
+    expect((await owner.client.get(`/api/yards/${yardId}/seed-plan?today=2026-02-30`)).status).toBe(400)
+    expect((await owner.client.get(`/api/yards/${yardId}/seed-plan?today=2027-02-29`)).status).toBe(400)
+    expect((await owner.client.get(`/api/yards/${yardId}/seed-plan?today=2028-02-29`)).status).toBe(200)
     expect((await owner.client.get('/api/yards/999999999/seed-plan')).status).toBe(404)
   })
 })

@@ -44,8 +44,11 @@ describe('seed reminders', () => {
     expect(on.body.enabled).toBe(true)
     const plan = (await client.get(`/api/yards/${yardId}/seed-plan`)).body
     const today = new Date().toISOString().slice(0, 10)
-    const upcoming = plan.tasks.filter((t: any) => !t.optional && t.date >= today)
+    // a task is reminded until its window closes (a sowing window open today still gets its reminder)
+    const upcoming = plan.tasks.filter((t: any) => !t.optional && (t.endDate ?? t.date) >= today)
     expect(on.body.scheduled.length).toBe(upcoming.length)
+    // the season's pot-up and plant-out are among them
+    expect(on.body.scheduled.map((r: any) => r.taskId.split(':')[0])).toEqual(expect.arrayContaining(['pot-up', 'plant-out']))
     expect((await jobsOf(user.id, yardId)).every((j) => j.status === 'pending')).toBe(true)
     // opting in twice adds nothing
     await client.put(`/api/yards/${yardId}/seed-reminders`, { enabled: true })
