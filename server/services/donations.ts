@@ -2,7 +2,7 @@
 import { and, desc, eq, isNotNull } from 'drizzle-orm'
 import Papa from 'papaparse'
 import { donations, users } from '../database/schema'
-import type { AccountRow } from '../utils/auth'
+import type { AccountRow } from '../database/schema'
 import type { DonationBody } from '#shared/schemas/sale'
 import { sumByCurrency, formatMoney } from '#shared/utils/money'
 import { label } from '#shared/utils/labels'

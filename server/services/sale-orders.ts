@@ -2,7 +2,7 @@
 // coordinator's packing, pickup, cancelling with a refund, pick lists and lists.
 import { and, asc, desc, eq, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm'
 import { saleOrders, saleOrderItems, seedLots, users, pickupEvents, seedSales } from '../database/schema'
-import type { AccountRow, YardRow } from '../utils/auth'
+import type { AccountRow, YardRow } from '../database/schema'
 import { requireOpenSale, lotViews, currentSale, saleById, type LotView } from './sale'
 import { sendOrderReceipt } from './sale-mail'
 import { seedPlanFor } from './seed-plan'

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { isoDay } from './seed'
+import { isoDate } from './common'
 import { regionCode } from './common'
 import { ORDER_STATUSES, DELIVERY_KINDS, PAYMENT_KINDS } from '../utils/labels'
 
@@ -12,8 +12,8 @@ const id = z.number({ error: 'Choose one' }).int().positive('Choose one')
 
 export const saleBody = z.object({
   name: z.string().trim().min(2, 'Name the sale').max(160),
-  opensOn: isoDay,
-  closesOn: isoDay,
+  opensOn: isoDate,
+  closesOn: isoDate,
   paused: z.boolean().default(false),
   currency: currency.default('usd'),
   mailEnabled: z.boolean().default(false),

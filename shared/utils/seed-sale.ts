@@ -1,5 +1,5 @@
 // The seed sale's pure rules: which packets cover a seed plan, what a lot grows, its treatment in words.
-import { GRAMS_PER_POUND } from './seed-plan'
+import { GRAMS_PER_POUND } from './seed-size'
 
 export interface PlanNeed { key: string; scientificName: string; seeds: number; grams: number | null }
 export interface LotOffer { id: number; speciesKey: string; seedsPerPacket: number | null; packetMilligrams: number | null; stock: number }
