@@ -261,12 +261,12 @@ export function applyMoves(doc: YardDocument, facts: Map<string, SpeciesFacts>, 
 }
 
 // The roomiest spot for new perennials (on a grid, good to a step): in the lot, off buildings, paving, water and
-// ground-layer plantings other than lawn (planting on lawn converts it), so the clumps cut nothing counted.
+// ground-layer plantings other than sodded or sown lawn (planting there converts it), so the clumps cut nothing counted.
 function openSpot(measured: MeasuredYard, steps = 40): { point: Point; clearance: number } {
   const { lot, doc } = measured
   if (!lot) return roomiestPoint(lot)
   const taken: Ring[] = doc.areas.filter((a) => HARD_KINDS.has(a.kind)).map((a) => a.points as Ring)
-  for (const m of measured.plantings) if (m.layer === 'ground' && m.isArea && !m.lawn) taken.push(doc.plantings[m.index]!.points as Ring)
+  for (const m of measured.plantings) if (m.layer === 'ground' && m.isArea && !(m.lawn && m.count === null)) taken.push(doc.plantings[m.index]!.points as Ring)
   const { minX, minY, maxX, maxY } = lot.box
   let best = { point: lot.ring[0]! as Point, clearance: 0 }
   for (let i = 1; i < steps; i++) {
