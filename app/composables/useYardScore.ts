@@ -8,7 +8,8 @@ import type { ScoreInputs } from '#shared/schemas/score'
 import type { YardDocument } from '#shared/schemas/yard-document'
 import type { SpeciesFacts } from '#shared/types/species'
 import type { Point } from '#shared/utils/polygon'
-import { createScoreMemo, factsKey, scoreYard, speciesKeys } from '#shared/utils/score'
+import { createScoreMemo, scoreYard, speciesKeys } from '#shared/utils/score'
+import { nameKey } from '#shared/utils/species-name'
 import { useEditorStore, useEditorViewStore } from '~/stores/editor'
 
 /** The goal and species facts for the yard being edited, and the engine's memo for it. */
@@ -35,7 +36,7 @@ export const useScoreInputsStore = defineStore('score-inputs', () => {
     goal.value = inputs.goal
     const next = new Map(facts.value)
     for (const [key, f] of Object.entries(inputs.facts)) next.set(key, f)
-    for (const n of names) asked.add(factsKey(n))
+    for (const n of names) asked.add(nameKey(n))
     facts.value = next
   }
 
@@ -57,7 +58,7 @@ export const useScoreInputsStore = defineStore('score-inputs', () => {
   async function want(names: Iterable<string>) {
     const where = region.value
     if (!where) return
-    const missing = [...new Set([...names].map(factsKey))].filter((k) => !asked.has(k))
+    const missing = [...new Set([...names].map(nameKey))].filter((k) => !asked.has(k))
     if (!missing.length) return
     for (const k of missing) asked.add(k)
     pending.value++

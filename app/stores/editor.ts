@@ -29,10 +29,7 @@ import { phaseOf, type Phase } from '#shared/schemas/yard-document'
 import { PHASE_LABELS } from '#shared/utils/labels'
 import type { Score, Share } from '#shared/schemas/score'
 
-// the pure edits and geometry live in shared/utils/yard-edits.ts; re-exported for the editor's components
-export * from '#shared/utils/yard-edits'
-export { pointInRing as pointInPolygon } from '#shared/utils/polygon'
-export { distanceToSegment, type Box } from '#shared/utils/geometry'
+// the pure edits and geometry live in shared/utils/yard-edits.ts: components import them from there
 
 export type YardAccessLevel = 'owner' | 'edit' | 'view'
 export const HISTORY_LIMIT = 150

@@ -269,19 +269,19 @@ export async function speciesFactsFor(names: Iterable<string>, region: string): 
   const out = new Map<string, SpeciesFacts>()
   for (const name of names) {
     const s = findSpecies(cat, name)
-    if (s) out.set(name.trim().toLowerCase(), factsOf(s, statuses.get(s.id) ?? 'absent'))
+    if (s) out.set(nameKey(name), factsOf(s, statuses.get(s.id) ?? 'absent'))
   }
   return out
 }
 
-/** Everything known of each named species in a region (seed plan, species page, fits), keyed by lower-cased name. */
+/** Everything known of each named species in a region (seed plan, species page, fits), keyed by `nameKey`. */
 export async function getSpeciesDetails(names: string[], region: string): Promise<Map<string, SpeciesDetails>> {
   const cat = await useCatalogue()
   const statuses = await regionStatuses(cat, region)
   const out = new Map<string, SpeciesDetails>()
   for (const name of names) {
     const s = findSpecies(cat, name)
-    if (s) out.set(name.trim().toLowerCase(), detailsOf(s, statuses.get(s.id) ?? 'absent'))
+    if (s) out.set(nameKey(name), detailsOf(s, statuses.get(s.id) ?? 'absent'))
   }
   return out
 }

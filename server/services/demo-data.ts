@@ -189,12 +189,12 @@ export const DEMO_SALE_LOTS = [
 
 export async function loadDemoSale(tx: Tx) {
   const { seedSales, pickupEvents, seedLots } = await import('../database/schema')
-  const { speciesKey } = await import('#shared/utils/seed-plan')
+  const { nameKey } = await import('#shared/utils/species-name')
   const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10)
   const saleId = insertedId(await tx.insert(seedSales).values({ name: `${DEMO_ORGANISATION} seed sale`, opensOn: day(-10), closesOn: day(60), currency: 'usd', mailEnabled: true, mailFeeMinor: 500 }).$returningId())
   await tx.insert(pickupEvents).values([
     { saleId, startsAt: `${day(21)} 10:00:00`, place: `${DEMO_TOWN} library porch, 12 Quarry Row` },
     { saleId, startsAt: `${day(35)} 14:00:00`, place: 'Millrace community garden shed' },
   ])
-  await tx.insert(seedLots).values(DEMO_SALE_LOTS.map((l) => ({ ...l, saleId, speciesKey: speciesKey(l.scientificName) })))
+  await tx.insert(seedLots).values(DEMO_SALE_LOTS.map((l) => ({ ...l, saleId, speciesKey: nameKey(l.scientificName) })))
 }

@@ -3,7 +3,8 @@ import { and, asc, desc, eq, gte, lte } from 'drizzle-orm'
 import Papa from 'papaparse'
 import { seedSales, pickupEvents, seedLots } from '../database/schema'
 import { getSpeciesDetails } from './catalogue'
-import { speciesKey, tagTreatment, treatmentSteps, treatmentFacts } from '#shared/utils/seed-plan'
+import { nameKey } from '#shared/utils/species-name'
+import { tagTreatment, treatmentSteps, treatmentFacts } from '#shared/utils/seed-plan'
 import { isoDate } from '#shared/utils/seed-season'
 import { bloomWords, packetContents, saleIsOpen } from '#shared/utils/seed-sale'
 import { parseMoney, formatMoney } from '#shared/utils/money'
@@ -100,7 +101,7 @@ export interface LotView {
 
 export async function lotViews(lots: LotRow[], currency: string, region = DEFAULT_REGION): Promise<LotView[]> {
   const details = lots.length ? await getSpeciesDetails([...new Set(lots.map((l) => l.scientificName))], region) : new Map<string, SpeciesDetails>()
-  const byKey = new Map([...details.values()].map((d) => [speciesKey(d.scientificName), d]))
+  const byKey = new Map([...details.values()].map((d) => [nameKey(d.scientificName), d]))
   return lots.map((l) => {
     const d = byKey.get(l.speciesKey)
     const words = treatmentWords(d)
@@ -134,7 +135,7 @@ export async function shop(filter: ShopFilter) {
 // Lots
 
 async function catalogueName(name: string, field = 'scientificName'): Promise<string> {
-  const found = (await getSpeciesDetails([name], DEFAULT_REGION)).get(name.trim().toLowerCase())
+  const found = (await getSpeciesDetails([name], DEFAULT_REGION)).get(nameKey(name))
   if (!found) throw invalidInput({ [field]: 'Not in the species catalogue' })
   return found.scientificName
 }
@@ -143,7 +144,7 @@ export async function createLot(body: LotBody): Promise<LotRow> {
   await saleById(body.saleId)
   const scientificName = await catalogueName(body.scientificName)
   const db = useDb()
-  const [r] = await db.insert(seedLots).ignore().values({ ...body, scientificName, speciesKey: speciesKey(scientificName) })
+  const [r] = await db.insert(seedLots).ignore().values({ ...body, scientificName, speciesKey: nameKey(scientificName) })
   if (r.affectedRows === 0) throw invalidInput({ collected: 'This sale already has a lot of this species from there' })
   const [lot] = await db.select().from(seedLots).where(eq(seedLots.id, r.insertId)).limit(1)
   return lot!
@@ -207,9 +208,9 @@ export async function readLotsCsv(saleId: number, text: string): Promise<{ lots:
       errors.push({ row, column, message: issue.message })
       return
     }
-    const found = details.get(check.data.scientificName.toLowerCase())
+    const found = details.get(nameKey(check.data.scientificName))
     if (!found) { errors.push({ row, column: 'species', message: `"${check.data.scientificName}" is not in the species catalogue` }); return }
-    const key = `${speciesKey(found.scientificName)}|${check.data.collected.toLowerCase()}`
+    const key = `${nameKey(found.scientificName)}|${check.data.collected.toLowerCase()}`
     if (seen.has(key)) { errors.push({ row, column: 'collected', message: 'The same species and collection appear on an earlier row' }); return }
     seen.add(key)
     lots.push({ ...check.data, scientificName: found.scientificName })
@@ -231,7 +232,7 @@ export async function importLots(saleId: number, text: string) {
   await useDb().transaction(async (tx) => {
     for (const l of lots) {
       const { saleId: _s, ...values } = l
-      await tx.insert(seedLots).values({ ...l, speciesKey: speciesKey(l.scientificName) })
+      await tx.insert(seedLots).values({ ...l, speciesKey: nameKey(l.scientificName) })
         .onDuplicateKeyUpdate({ set: { seedsPerPacket: values.seedsPerPacket, packetMilligrams: values.packetMilligrams, priceMinor: values.priceMinor, stock: values.stock, growingNotes: values.growingNotes } })
     }
   })

@@ -3,11 +3,12 @@
 import type { YardDocument } from '#shared/schemas/yard-document'
 import type { Score, ScoreInputs } from '#shared/schemas/score'
 import type { SpeciesFacts } from '#shared/types/species'
-import { factsKey, scoreYard, speciesKeys } from '#shared/utils/score'
+import { scoreYard, speciesKeys } from '#shared/utils/score'
+import { nameKey } from '#shared/utils/species-name'
 import { speciesFactsFor } from './catalogue'
 import { organisationGoal } from './organisation'
 
-/** Catalogue facts for the species `doc` names, in `region`, keyed by `factsKey`. */
+/** Catalogue facts for the species `doc` names, in `region`, keyed by `nameKey`. */
 export async function yardFacts(doc: YardDocument, region: string | null): Promise<Map<string, SpeciesFacts>> {
   const keys = speciesKeys(doc)
   return region && keys.size ? speciesFactsFor(keys, region) : new Map()
@@ -22,7 +23,7 @@ export async function scoreDocument(doc: YardDocument, region?: string | null): 
 
 /** The goal and the facts of `names` in `region`, as the editor's engine takes them. */
 export async function scoreInputsFor(names: Iterable<string>, region: string | null): Promise<ScoreInputs> {
-  const keys = new Set([...names].map(factsKey))
+  const keys = new Set([...names].map(nameKey))
   const [facts, goal] = await Promise.all([region && keys.size ? speciesFactsFor(keys, region) : new Map<string, SpeciesFacts>(), organisationGoal()])
   return { region, goal, facts: Object.fromEntries(facts) }
 }

@@ -5,8 +5,9 @@ import { createEvents, type EventAttributes } from 'ics'
 import { seedPlans, seedPrices } from '../database/schema'
 import type { YardRow } from '../database/schema'
 import { getSpeciesDetails } from './catalogue'
+import { nameKey } from '#shared/utils/species-name'
 import {
-  computeSeedPlan, speciesKey, raisedFromSeed, DEFAULT_MARGIN,
+  computeSeedPlan, raisedFromSeed, DEFAULT_MARGIN,
   type SeedPlan, type SeedPlanSettings, type SpeciesSetting, type SeedTask,
 } from '#shared/utils/seed-plan'
 import { frostDates, isoDate, parseIsoDate, addDays } from '#shared/utils/seed-season'
@@ -31,7 +32,7 @@ export async function seedPlanFor(yard: YardRow, today = isoDate(new Date())): P
   const names = [...new Set(plantings.map((p) => p.species?.trim()).filter((n): n is string => !!n))]
   const details = names.length ? await getSpeciesDetails(names, yard.region) : new Map<string, SpeciesDetails>()
   const detailsByKey = new Map<string, SpeciesDetails>()
-  for (const [name, d] of details) detailsByKey.set(speciesKey(name), d)
+  for (const [name, d] of details) detailsByKey.set(nameKey(name), d)
 
   // plantings to plant only (what stands there now is not raised), counted over the area the score counts
   const doc = yard.document ?? { plantings: [] }
@@ -63,7 +64,7 @@ export async function saveSeedSettings(yard: YardRow, body: UpdateSeedPlanBody):
   if (body.version !== current.version) throw stale()
   const species: Record<string, SpeciesSetting> = { ...current.species }
   for (const [name, setting] of Object.entries(body.species ?? {})) {
-    const key = speciesKey(name)
+    const key = nameKey(name)
     const merged: SpeciesSetting = { ...species[key], ...setting }
     if (merged.seedlingsPerPot === null) delete merged.seedlingsPerPot
     if (merged.grow === undefined) delete merged.grow
@@ -139,9 +140,9 @@ export function calendarText(events: EventAttributes[], calName: string): string
 export async function setSeedPrice(user: { id: number }, body: SeedPriceBody) {
   const db = useDb()
   const details = await getSpeciesDetails([body.scientificName], 'US-OH')
-  const found = details.get(body.scientificName.trim().toLowerCase())
+  const found = details.get(nameKey(body.scientificName))
   if (!found) throw createError({ status: 400, message: 'That species is not in the catalogue', data: { fields: { scientificName: 'Not in the catalogue' } } })
-  const key = speciesKey(found.scientificName)
+  const key = nameKey(found.scientificName)
   if (body.pricePerGram === null) {
     await db.delete(seedPrices).where(eq(seedPrices.speciesKey, key))
     return { scientificName: found.scientificName, pricePerGram: null }

@@ -35,6 +35,10 @@ export const moveSchema = z.strictObject({
   amount: z.number(),
   unit: z.enum(['m2', 'plants']),
   text: z.string(),
+  /** replace-invasive: the ids of the plantings it replaces */
+  plantings: z.array(z.string()).optional(),
+  /** add-plants: the layer of the plants it adds (sized as the engine's typical plant of that layer) */
+  layer: z.enum(LAYERS).optional(),
 })
 
 export const scoreSchema = z.strictObject({
@@ -71,7 +75,7 @@ export const speciesFactsBody = z.strictObject({
   names: z.array(z.string().trim().min(1).max(200)).min(1).max(MAX_PLANTINGS),
 })
 
-/** The facts and the goal the engine needs: facts keyed by `factsKey` (names not in the catalogue are absent). */
+/** The facts and the goal the engine needs: facts keyed by `nameKey` (names not in the catalogue are absent). */
 export interface ScoreInputs {
   region: string | null
   goal: number

@@ -4,6 +4,8 @@
  * memory of the USDA Forest Service Woody Plant Seed Manual (Agriculture Handbook 727, 2008) genus chapters and
  * common nursery practice, and a coordinator corrects it per species (the catalogue's `sowFresh` field).
  */
+import { nameKey } from './species-name'
+
 export const SOW_FRESH_SOURCE = 'from memory: seed that dies when dried (default list)'
 
 /** Genera whose seed is recalcitrant: oaks (acorns of the white-oak group sprout in fall), buckeyes, chestnuts, pawpaw. */
@@ -12,7 +14,7 @@ export const SOW_FRESH_GENERA = new Set(['quercus', 'aesculus', 'castanea', 'asi
 export const SOW_FRESH_SPECIES = new Set(['lindera benzoin'])
 
 export function defaultSowFresh(scientificName: string, genus?: string | null): boolean {
-  const name = scientificName.trim().toLowerCase().replace(/\s+/g, ' ')
+  const name = nameKey(scientificName)
   const g = (genus ?? name.split(' ')[0] ?? '').toLowerCase()
   return SOW_FRESH_GENERA.has(g) || SOW_FRESH_SPECIES.has(name.split(' ').slice(0, 2).join(' '))
 }

@@ -27,6 +27,7 @@ import {
   type FrostDates, type ColdNeed, type SowRoute, type Schedule,
 } from './seed-season'
 import type { RegionStatus, SpeciesDetails } from '../types/species'
+import { nameKey } from './species-name'
 
 
 export const POT_SIZE_CM = 10
@@ -169,7 +170,7 @@ export function plantsBySpecies(plantings: PlanPlanting[], spacingOf: (key: stri
   const out = new Map<string, { name: string; plants: number; cultivars: boolean }>()
   for (const p of plantings) {
     if (!p.species) continue
-    const key = speciesKey(p.species)
+    const key = nameKey(p.species)
     let plants: number
     if (p.points) {
       // spacing null means sown or sodded: no plants to raise in pots
@@ -186,9 +187,6 @@ export function plantsBySpecies(plantings: PlanPlanting[], spacingOf: (key: stri
   return out
 }
 
-export function speciesKey(name: string): string {
-  return name.trim().toLowerCase().replace(/\s+/g, ' ')
-}
 
 /** pots = ceil(plants × (1 + margin) ÷ seedlings per pot), ignoring floating-point dust above a whole number */
 export function potsNeeded(plants: number, seedlingsPerPot: number, margin = DEFAULT_MARGIN): number {

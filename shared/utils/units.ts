@@ -23,3 +23,16 @@ export function formatLength(metres: number, units: Units, digits = 1): string {
 export function formatArea(squareMetres: number, units: Units, digits = 0): string {
   return `${toDisplayArea(squareMetres, units).toFixed(digits)} ${units === 'ft' ? 'sq ft' : 'm²'}`
 }
+
+/**
+ * An area rounded UP in the yard's units to three significant figures (so it exceeds the exact figure by under
+ * 1 %): the amount a move asks for, in square metres, and its words. A move's amount must still be enough once rounded.
+ */
+export function areaAtLeast(squareMetres: number, units: Units): { squareMetres: number; text: string } {
+  const v = toDisplayArea(squareMetres, units)
+  if (!(v > 0)) return { squareMetres: 0, text: formatArea(0, units) }
+  const step = 10 ** (Math.floor(Math.log10(v)) - 2)
+  const up = Number((Math.ceil(v / step - 1e-9) * step).toPrecision(3))
+  const shown = up.toLocaleString('en-US', { maximumSignificantDigits: 3 })
+  return { squareMetres: units === 'ft' ? up * SQUARE_METRES_PER_SQUARE_FOOT : up, text: `${shown} ${units === 'ft' ? 'sq ft' : 'm²'}` }
+}

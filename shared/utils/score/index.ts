@@ -10,6 +10,7 @@ import { measureYard, type MeasuredYard, type PlantingMeasure } from './measure'
 import { movesToGoal } from './moves'
 import { hasPlan, phaseView } from './phases'
 import { createScoreMemo, type ScoreMemo } from './memo'
+import { nameKey } from '../species-name'
 
 export { YEARS_TO_MATURITY, START_SIZE, GROWTH_STEPS, DEFAULT_RATE, defaultStart, grownSize } from './growth'
 export { createScoreMemo, type ScoreMemo } from './memo'
@@ -17,7 +18,7 @@ export { movesAsPlanItems } from './plan-items'
 export { phaseView, hasPlan } from './phases'
 export { DEFAULT_GOAL, GOAL_MAX, GOAL_MIN, GOAL_TOLERANCE, meetsGoal } from './goal'
 export { round3, contribution, tallyYard, type YardTally } from './tally'
-export { factsKey, speciesKeys, measureYard, TYPICAL_SIZE, type MeasuredYard, type PlantingMeasure } from './measure'
+export { speciesKeys, measureYard, TYPICAL_SIZE, MOWN_LAWN_HEIGHT, type MeasuredYard, type PlantingMeasure } from './measure'
 
 const SHARE_FIELDS: ShareKind[] = ['count', 'area', 'volume']
 
@@ -49,7 +50,7 @@ export function plantsToPlant(doc: YardDocument, facts: Map<string, SpeciesFacts
   for (const m of measured.plantings) {
     const p = planned.plantings[m.index]!
     if (phaseOf(p) !== 'planned' || !p.species) continue
-    const key = p.species.trim().toLowerCase().replace(/\s+/g, ' ')
+    const key = nameKey(p.species)
     const entry = out.get(key) ?? { name: p.species.trim(), plants: 0, cultivars: false }
     entry.plants += m.count ?? 0
     if (p.cultivar) entry.cultivars = true
@@ -84,7 +85,7 @@ export function scoreMeasured(measured: MeasuredYard, goal: number, memo?: Score
 }
 
 /**
- * The score of a yard document: species facts keyed by `factsKey`, the goal share, the region (default: the
+ * The score of a yard document: species facts keyed by `nameKey` (shared/utils/species-name.ts), the goal share, the region (default: the
  * document's). The memo, when given, carries what the last call worked out (the editor's; the server passes none).
  */
 export function scoreYard(doc: YardDocument, facts: Map<string, SpeciesFacts>, goal: number, region?: string | null, memo?: ScoreMemo, options: { years?: number | null } = {}): Score {

@@ -1,9 +1,10 @@
 // Measuring a yard: each planting's status, layer and footprint (clipped to the lot; the ground layer cut by
-// whatever is drawn above it). Pure: the species facts come in as a map keyed by `factsKey`.
+// whatever is drawn above it). Pure: the species facts come in as a map keyed by `nameKey`.
 import { isAreaPlanting, phaseOf, type YardDocument, type YardPlanting } from '../../schemas/yard-document'
 import type { Layer, PlantingStatus, SpeciesFacts } from '../../types/species'
 import type { ScoreWarning } from '../../schemas/score'
-import { areaInLot, circleAreaInLot, shapeOf, visibleArea, type Cutter, type Shape } from '../geometry'
+import { areaInLot, circleAreaInLot, circleRing, shapeOf, visibleArea, type Cutter, type Shape } from '../geometry'
+import { nameKey } from '../species-name'
 import { pointInRing, type Ring } from '../polygon'
 import { plantsNeeded } from '../plant-count'
 import { regionName } from '../regions'
@@ -20,13 +21,19 @@ export const TYPICAL_SIZE: Record<Layer, { spread: number; height: number; spaci
   ground: { spread: 0.45, height: 0.6, spacing: 0.45 },
 }
 
+/**
+ * The height of a lawn drawn without one: mown, 8 cm (common practice: cool-season lawns are mown to about
+ * 5–10 cm), not the grass's unmown mature height from USDA PLANTS. Marked as a default in the warnings.
+ */
+export const MOWN_LAWN_HEIGHT = 0.08
+
 /** Everything the engine works out for one planting (areas in m², volumes in m³, before rounding). */
 export interface PlantingMeasure {
   index: number
   id: string
   name: string
-  /** the name lower-cased: plantings of one species are grouped by it */
-  nameKey: string
+  /** the species' `nameKey` (else the shown name's): plantings of one species are grouped by it */
+  group: string
   status: PlantingStatus
   layer: Layer
   isArea: boolean
@@ -50,15 +57,12 @@ export interface MeasuredYard {
   own: ScoreWarning[][]
 }
 
-/** The key of a species name in the facts map: trimmed and lower-cased. */
-export const factsKey = (species: string) => species.trim().toLowerCase()
-
-/** The facts keys of the species a document names. */
+/** The facts keys (`nameKey`) of the species a document names. */
 export function speciesKeys(doc: YardDocument): Set<string> {
   const given = new Set<string>()
   for (const p of doc.plantings) if (p.species) given.add(p.species)
   const keys = new Set<string>()
-  for (const n of given) keys.add(factsKey(n))
+  for (const n of given) keys.add(nameKey(n))
   return keys
 }
 
@@ -84,23 +88,51 @@ export function shapeFor(ring: Ring, memo?: ScoreMemo): Shape {
   return shape
 }
 
-type Drawn = { order: [number, number, number]; ring: Ring; plantingIndex: number | null }
+type Drawn = { order: [number, number, number]; shape: () => Shape; plantingIndex: number | null }
+
+// a clump's disc as a polygon of the same area (circleRing), so a clump wholly on the lawn cuts exactly its footprint
+const DISC_SIDES = 32
+
+/** The cutter of a ground-layer clump of radius `r` (the memo's while the planting's place and size are unchanged). */
+export function discFor(p: YardPlanting, r: number, memo?: ScoreMemo): Shape {
+  const make = () => shapeOf(circleRing(p.x!, p.y!, r, DISC_SIDES))
+  if (!memo) return make()
+  const key = `${p.x}\u0000${p.y}\u0000${r}`
+  const known = memo.discs.get(p)
+  if (known && known.key === key) return known.shape
+  const shape = make()
+  memo.discs.set(p, { key, shape })
+  return shape
+}
 
 /**
  * For each ground-layer area planting, the shapes drawn above it: anything with a higher z, and at equal z
- * the later one (areas sit under plantings of the same z, so a drift drawn in its bed stays visible).
+ * the later one (areas sit under plantings of the same z, so a drift drawn in its bed stays visible). A
+ * ground-layer clump (a point planting, `clumpRadius` not null) sits above every outline: it cuts the lawn or
+ * drift beneath it as a drift would, so its ground is not counted twice.
  */
-export function groundCutters(doc: YardDocument, isGroundArea: (index: number) => boolean, shapes = new Map<number, Shape>(), memo?: ScoreMemo): Map<number, Cutter[]> {
+export function groundCutters(doc: YardDocument, isGround: (index: number) => boolean, shapes = new Map<number, Shape>(), memo?: ScoreMemo, clumpRadius: (index: number) => number | null = () => null): Map<number, Cutter[]> {
   const drawn: Drawn[] = []
-  doc.areas.forEach((a, i) => drawn.push({ order: [a.z ?? 0, 0, i], ring: a.points as Ring, plantingIndex: null }))
+  doc.areas.forEach((a, i) => drawn.push({ order: [a.z ?? 0, 0, i], shape: () => shapeFor(a.points as Ring, memo), plantingIndex: null }))
   doc.plantings.forEach((p, i) => {
-    if (isAreaPlanting(p) && isGroundArea(i)) drawn.push({ order: [p.z ?? 0, 1, i], ring: p.points as Ring, plantingIndex: i })
+    if (!isGround(i)) return
+    if (isAreaPlanting(p)) drawn.push({ order: [p.z ?? 0, 1, i], shape: () => shapeFor(p.points as Ring, memo), plantingIndex: i })
+    else {
+      const r = clumpRadius(i)
+      if (r !== null && r > 0) drawn.push({ order: [Infinity, 2, i], shape: () => discFor(p, r, memo), plantingIndex: null })
+    }
   })
   drawn.sort((a, b) => a.order[0] - b.order[0] || a.order[1] - b.order[1] || a.order[2] - b.order[2])
   const out = new Map<number, Cutter[]>()
-  const cutters = drawn.map((d) => shapeFor(d.ring, memo))
+  const cutters = drawn.map((d) => d.shape())
   drawn.forEach((d, k) => { if (d.plantingIndex !== null) { out.set(d.plantingIndex, cutters.slice(k + 1)); shapes.set(d.plantingIndex, cutters[k]!) } })
   return out
+}
+
+/** The radius of a ground-layer clump's footprint: n plants of spread s make one disc of radius (s/2)·√n. */
+export function clumpRadiusOf(p: YardPlanting, f: SpeciesFacts | undefined, layer: Layer): number {
+  const spread = p.spread ?? f?.spread ?? TYPICAL_SIZE[layer].spread
+  return (spread / 2) * Math.sqrt(p.count ?? 1)
 }
 
 export function lotShape(doc: YardDocument, memo?: ScoreMemo): Shape | null {
@@ -151,14 +183,14 @@ export function measureYard(doc: YardDocument, factsArg: Map<string, SpeciesFact
   const layers: Layer[] = new Array(n)
   for (let i = 0; i < n; i++) {
     const p = doc.plantings[i]!
-    const key = p.species ? factsKey(p.species) : null
+    const key = p.species ? nameKey(p.species) : null
     keys[i] = key
     const f = key ? facts.get(key) : undefined
     factsOf[i] = f
     layers[i] = f?.layer ?? layerBySize(p)
   }
   const shapes = new Map<number, Shape>()
-  const cutters = groundCutters(doc, (i) => layers[i] === 'ground', shapes, memo)
+  const cutters = groundCutters(doc, (i) => layers[i] === 'ground', shapes, memo, (i) => clumpRadiusOf(doc.plantings[i]!, factsOf[i], layers[i]!))
 
   const own: ScoreWarning[][] = new Array(n)
   const plantings = doc.plantings.map((p, index): PlantingMeasure => {
@@ -200,11 +232,13 @@ export function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts 
     warnings.push({ id: p.id, message: `${f.scientificName} is not recorded in ${where}, so it counts as introduced` })
   } else if (f) status = f.status as PlantingStatus
   const name = f?.commonName ?? f?.scientificName ?? p.species ?? p.label ?? 'unidentified plant'
-  const nameKey = name.toLowerCase()
+  const group = p.species ? nameKey(p.species) : nameKey(name)
   const cultivar = typeof p.cultivar === 'string' && p.cultivar.length > 0
   const typical = TYPICAL_SIZE[layer]
-  const matureHeight = p.height ?? f?.height ?? typical.height
-  if (p.height === undefined && (!f || f.estimated.includes('height'))) warnings.push({ id: p.id, message: `The height of ${name} is an estimate (${matureHeight} m); measure or check it` })
+  const mownLawn = p.height === undefined && f?.lawn === true && isAreaPlanting(p)
+  const matureHeight = mownLawn ? MOWN_LAWN_HEIGHT : p.height ?? f?.height ?? typical.height
+  if (mownLawn) warnings.push({ id: p.id, message: `${name} is taken as mown lawn, ${Math.round(MOWN_LAWN_HEIGHT * 100)} cm tall (a default); give its height if it is kept taller` })
+  else if (p.height === undefined && (!f || f.estimated.includes('height'))) warnings.push({ id: p.id, message: `The height of ${name} is an estimate (${matureHeight} m); measure or check it` })
   // a planting still to plant, seen before maturity: its size that many years after planting
   const young = ctx.years !== null && ctx.years !== undefined && phaseOf(p) === 'planned'
   const grow = (spread: number) => {
@@ -226,7 +260,7 @@ export function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts 
       height = g.height
     }
     if (area === 0) warnings.push({ id: p.id, message: layer === 'ground' ? `${name} is outside the lot or wholly covered by shapes drawn above it, so it counts nothing` : `${name} is outside the lot, so it counts nothing` })
-    return { index, id: p.id, name, nameKey, status, layer, isArea: true, lawn: f?.lawn === true, cultivar, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height, spread: null, height, spacing }
+    return { index, id: p.id, name, group, status, layer, isArea: true, lawn: f?.lawn === true, cultivar, count: spacing === null ? null : plantsNeeded(area, spacing), area, volume: area * height, spread: null, height, spacing }
   }
   const matureSpread = p.spread ?? f?.spread ?? typical.spread
   if (p.spread === undefined && (!f || f.estimated.includes('spread'))) warnings.push({ id: p.id, message: `The spread of ${name} is an estimate (${matureSpread} m); measure or check it` })
@@ -235,8 +269,8 @@ export function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts 
   const height = g ? g.height : matureHeight
   const count = p.count ?? 1
   // a clump of n plants is one disc of n plants' footprint, centred on the planting
-  const area = circleAreaInLot(p.x!, p.y!, (spread / 2) * Math.sqrt(count), lot)
+  const area = circleAreaInLot(p.x!, p.y!, clumpRadiusOf(p, f, layer), lot)
   const centreIn = !lot || pointInRing([p.x!, p.y!], lot.ring)
   if (!centreIn) warnings.push({ id: p.id, message: `${name} stands outside the lot, so its plants are not counted` })
-  return { index, id: p.id, name, nameKey, status, layer, isArea: false, lawn: false, cultivar, count: centreIn ? count : 0, area, volume: area * height, spread, height, spacing: null }
+  return { index, id: p.id, name, group, status, layer, isArea: false, lawn: false, cultivar, count: centreIn ? count : 0, area, volume: area * height, spread, height, spacing: null }
 }

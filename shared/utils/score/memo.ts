@@ -22,6 +22,8 @@ export interface ScoreMemo {
   plantings: WeakMap<YardPlanting, Remembered>
   /** prepared outlines, by outline array, with the coordinates they were prepared from */
   shapes: WeakMap<Ring, { key: string; shape: Shape }>
+  /** ground-layer clumps' cutting discs, by planting, with the place and radius they were drawn for */
+  discs: WeakMap<YardPlanting, { key: string; shape: Shape }>
   /** one object per species while its facts stay equal, so a planting's facts compare by identity */
   facts: Map<string, SpeciesFacts>
   /** the lot's roomiest point (for add-plants moves), by lot shape */
@@ -31,7 +33,7 @@ export interface ScoreMemo {
 }
 
 /** A fresh memo: one per yard being edited. */
-export const createScoreMemo = (): ScoreMemo => ({ plantings: new WeakMap(), shapes: new WeakMap(), facts: new Map(), roomiest: new WeakMap() })
+export const createScoreMemo = (): ScoreMemo => ({ plantings: new WeakMap(), shapes: new WeakMap(), discs: new WeakMap(), facts: new Map(), roomiest: new WeakMap() })
 
 export function sameFacts(a: SpeciesFacts | undefined, b: SpeciesFacts | undefined): boolean {
   if (a === b) return true

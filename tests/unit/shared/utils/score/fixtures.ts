@@ -39,8 +39,8 @@ export function randomYards() {
   const size = fc.double({ min: 0.2, max: 12, noNaN: true })
   const box = (w: number, h: number) => fc.tuple(fc.double({ min: -2, max: w, noNaN: true }), fc.double({ min: -2, max: h, noNaN: true }), fc.double({ min: 0.5, max: 10, noNaN: true }), fc.double({ min: 0.5, max: 10, noNaN: true }))
     .map(([x, y, bw, bh]) => rect(x, y, bw, bh))
-  return fc.record({ w: fc.integer({ min: 6, max: 40 }), h: fc.integer({ min: 6, max: 40 }), notch: fc.boolean(), lawn: fc.constantFrom('Poa pratensis', 'Festuca arundinacea', null) })
-    .chain(({ w, h, notch, lawn }) => fc.record({
+  return fc.record({ w: fc.integer({ min: 6, max: 40 }), h: fc.integer({ min: 6, max: 40 }), notch: fc.boolean(), lawn: fc.constantFrom('Poa pratensis', 'Festuca arundinacea', null), units: fc.constantFrom('m' as const, 'ft' as const) })
+    .chain(({ w, h, notch, lawn, units }) => fc.record({
       areas: fc.array(fc.record({ kind: fc.constantFrom('building', 'paving', 'bed', 'water'), z: fc.integer({ min: 0, max: 9 }), points: box(w, h) }), { maxLength: 6 }),
       drifts: fc.array(fc.record({ species: fc.constantFrom(...species), z: fc.integer({ min: 0, max: 9 }), points: box(w, h), spacing: fc.option(fc.double({ min: 0.2, max: 1.5, noNaN: true }), { nil: undefined }), height: fc.option(size, { nil: undefined }) }), { maxLength: 5 }),
       plants: fc.array(fc.record({ species: fc.constantFrom(...species), x: fc.double({ min: -1, max: w + 1, noNaN: true }), y: fc.double({ min: -1, max: h + 1, noNaN: true }), count: fc.integer({ min: 1, max: 30 }), spread: fc.option(size, { nil: undefined }), height: fc.option(size, { nil: undefined }) }), { maxLength: 15 }),
@@ -52,7 +52,7 @@ export function randomYards() {
         ...drifts.map((d, i) => ({ id: `d${i}`, ...d })),
         ...plants.map((p, i) => ({ id: `p${i}`, ...p })),
       ]
-      return { doc: yard({ boundary, areas: areas.map((a, i): YardArea => ({ id: `a${i}`, ...a })), plantings }), goal }
+      return { doc: yard({ units, boundary, areas: areas.map((a, i): YardArea => ({ id: `a${i}`, ...a })), plantings }), goal }
     }))
 }
 

@@ -55,6 +55,39 @@ describe('scoreYard', () => {
     expect(s.find((p) => p.id === 'drift')!.area).toBe(4)
   })
 
+  it('takes a lawn drawn without a height as mown, marked as a default', () => {
+    const doc = yard({ plantings: [{ id: 'lawn', species: 'Poa pratensis', z: 0, points: rect(0, 0, 10, 10), spacing: null }] })
+    const score = scoreYard(doc, facts(), 0.7)
+    // 100 m² mown to 8 cm (common practice: lawns are mown to about 5–10 cm), not the fixture's grass height
+    expect(score.plantings[0]!.volume).toBeCloseTo(8, 9)
+    expect(score.warnings.find((w) => w.id === 'lawn')?.message).toMatch(/mown lawn, 8 cm tall \(a default\)/)
+    // a height drawn with the lawn wins
+    const tall = yard({ plantings: [{ ...doc.plantings[0]!, height: 0.3 }] })
+    expect(scoreYard(tall, facts(), 0.7).plantings[0]!.volume).toBeCloseTo(30, 9)
+  })
+
+  it('cuts the lawn under a clump of perennials, as under a drift', () => {
+    // a 10 × 10 m lawn with 4 coneflowers 0.5 m across at (5, 5): one disc of radius 0.25·√4 = 0.5 m, π/4 = 0.785 m²
+    const doc = yard({ plantings: [
+      { id: 'lawn', species: 'Poa pratensis', z: 0, points: rect(0, 0, 10, 10), spacing: null, height: 0.1 },
+      { id: 'cone', species: 'Echinacea purpurea', x: 5, y: 5, count: 4, spread: 0.5, height: 0.9 },
+    ] })
+    const score = scoreYard(doc, facts(), 0.7)
+    const byId = Object.fromEntries(score.plantings.map((p) => [p.id, p]))
+    const disc = Math.PI * 0.5 ** 2 // hand-worked
+    expect(byId.cone!.area).toBeCloseTo(disc, 3)
+    expect(byId.lawn!.area).toBeCloseTo(100 - disc, 3)
+    // cover counted once: lawn and clump make up the 100 m² lot
+    expect(score.shares.area.total).toBeCloseTo(100, 3)
+    expect(score.shares.area.share).toBeCloseTo(disc / 100, 4)
+    // a shrub (not the ground layer) stands over the lawn and cuts nothing: both layers count
+    const shrub = yard({ plantings: [doc.plantings[0]!, { id: 'dogwood', species: 'Cornus sericea', x: 5, y: 5, count: 1, spread: 2, height: 2 }] })
+    expect(scoreYard(shrub, facts(), 0.7).shares.area.total).toBeCloseTo(100 + Math.PI, 3)
+    // a clump half off the lot's edge cuts only the lawn inside: 100 − π·0.5²/2
+    const edge = yard({ plantings: [doc.plantings[0]!, { ...doc.plantings[1]!, x: 0 }] as typeof doc.plantings })
+    expect(scoreYard(edge, facts(), 0.7).plantings[0]!.area).toBeCloseTo(100 - disc / 2, 3)
+  })
+
   it('reports each status on its own line, and warns about unlisted and absent species', () => {
     const doc = yard({
       plantings: [
