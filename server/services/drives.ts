@@ -5,8 +5,9 @@ import { drives, pledges, shareSnapshots, driveMailings, driveMailDeliveries, dr
 import type { YardDocument } from '#shared/schemas/yard-document'
 import type { ShareSet } from '#shared/schemas/advice'
 import type { AccountRow, YardRow } from '../database/schema'
-import { GOAL_TOLERANCE, measureYard, meetsGoal, sharesOf, tallyYard } from '#shared/utils/score'
+import { GOAL_TOLERANCE, meetsGoal } from '#shared/utils/score'
 import { yardFacts } from './scoring'
+import { sharesInWorker } from './score-pool'
 import { enqueueJobs, jobProgress } from './jobs'
 
 export type ShareKind = 'count' | 'area' | 'volume'
@@ -23,10 +24,7 @@ export async function bumpDriveVersion(driveId: number, db: DbOrTx = useDb()) {
 
 /** The shares of a document as the score engine gives them, plus the visible lawn area (m²). */
 export async function yardShares(doc: YardDocument, region: string): Promise<{ shares: ShareSet; lawnArea: number }> {
-  const measured = measureYard(doc, await yardFacts(doc, region), region)
-  const lawnArea = measured.plantings.filter((p) => p.lawn).reduce((s, p) => s + p.area, 0)
-  const tally = tallyYard(measured.plantings)
-  return { shares: sharesOf(tally.native, tally.total), lawnArea }
+  return sharesInWorker({ doc, facts: await yardFacts(doc, region), region })
 }
 
 /** The share columns kept on a pledge and a snapshot (a share with nothing to share is stored as 0). */

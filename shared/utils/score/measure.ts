@@ -3,8 +3,8 @@
 import { isAreaPlanting, type YardDocument, type YardPlanting } from '../../schemas/yard-document'
 import type { Layer, PlantingStatus, SpeciesFacts } from '../../types/species'
 import type { ScoreWarning } from '../../schemas/score'
-import { areaInLot, circleAreaInLot, shapeOf, visibleArea, type Cutter, type Shape } from '../geometry'
-import { pointInRing, type Ring } from '../polygon'
+import { areaInLot, circleAreaInLot, pointInShape, shapeOf, visibleArea, type Cutter, type Shape } from '../geometry'
+import type { Ring } from '../polygon'
 import { plantsNeeded } from '../plant-count'
 import { regionName } from '../regions'
 import { sameFacts, type ScoreMemo, type Remembered } from './memo'
@@ -212,7 +212,7 @@ export function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts 
   const count = p.count ?? 1
   // a clump of n plants is one disc of n plants' footprint, centred on the planting
   const area = circleAreaInLot(p.x!, p.y!, (spread / 2) * Math.sqrt(count), lot)
-  const centreIn = !lot || pointInRing([p.x!, p.y!], lot.ring)
+  const centreIn = !lot || pointInShape([p.x!, p.y!], lot)
   if (!centreIn) warnings.push({ id: p.id, message: `${name} stands outside the lot, so its plants are not counted` })
   return { index, id: p.id, name, nameKey, status, layer, isArea: false, lawn: false, cultivar, count: centreIn ? count : 0, area, volume: area * height, spread, height, spacing: null }
 }
