@@ -3,7 +3,7 @@
 // only where shapes really cross. Points are [x, y] in metres, y down.
 import polygonClipping from 'polygon-clipping'
 import { ringArea, pointInRing, segmentsIntersect, type Point, type Ring } from './polygon'
-import { clipConvex, triangulate } from './convex-pieces'
+import { clipConvex, convexPartition } from './convex-pieces'
 
 export type Polygon = Ring[]
 export type MultiPolygon = Polygon[]
@@ -419,8 +419,8 @@ export const cutterOf = shapeOf
 /** The shape as convex pieces with disjoint interiors (itself when convex); null when it cannot be cut. */
 export function convexPieces(s: Shape): Shape[] | null {
   if (s.pieces === undefined) {
-    const triangles = s.convex ? null : triangulate(s.ring)
-    s.pieces = s.convex ? [s] : triangles ? triangles.map(shapeOf) : null
+    const parts = s.convex ? null : convexPartition(s.ring)
+    s.pieces = s.convex ? [s] : parts ? parts.map(shapeOf) : null
   }
   return s.pieces
 }
@@ -449,6 +449,20 @@ export function areaInLot(s: Shape, lot: Shape | null): number {
   return pieces ? pieces.reduce((sum, p) => sum + p.area, 0) : ringInLot(s.ring, lot, s).area
 }
 
+// clipping leaves points a rounding error apart; an edge that short has no trustworthy direction
+function withoutNearRepeats(ring: Ring, eps: number): Ring | null {
+  const out: Ring = []
+  for (const p of ring) {
+    const last = out[out.length - 1]
+    if (!last || Math.abs(p[0] - last[0]) + Math.abs(p[1] - last[1]) > eps) out.push(p)
+  }
+  while (out.length > 1 && Math.abs(out[0]![0] - out[out.length - 1]![0]) + Math.abs(out[0]![1] - out[out.length - 1]![1]) <= eps) out.pop()
+  return out.length >= 3 ? out : null
+}
+
+// a clipped piece smaller than this share of the piece it was clipped to is dropped
+const SLIVER = 1e-9
+
 /**
  * Visible area of a ground-layer shape: its part inside the lot, less everything drawn above it (`above`).
  * Every outline is cut into convex pieces, so each covered part is |P ∩ U| = |P| + |U| − |P ∪ U| for a convex
@@ -476,9 +490,17 @@ export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[], prep
       for (const x of cp) cut.push(x)
     }
     for (const p of pieces) {
-      // only the cutter pieces that reach this piece can cover it
-      const reach = cut.filter((c) => boxesOverlap(c.box, p.box))
-      if (reach.length) subtract += p.area + convexUnionArea(reach) - convexUnionArea([p, ...reach])
+      // |P ∩ U| is the area of the union of each cutter piece clipped to P (convex by convex, small)
+      const inP: Shape[] = []
+      for (const c of cut) {
+        if (!boxesOverlap(c.box, p.box)) continue
+        const part = c.ring.length <= p.ring.length ? clipConvex(p.ring, c.ring) : clipConvex(c.ring, p.ring)
+        const ring = part && withoutNearRepeats(part, 1e-9 * (p.box.maxX - p.box.minX + p.box.maxY - p.box.minY))
+        const q = ring && shapeOf(ring)
+        // a sliver adds at most its own (negligible) area and its orientation is not to be trusted
+        if (q && q.area > SLIVER * p.area) inP.push(q)
+      }
+      if (inP.length) subtract += convexUnionArea(inP)
     }
   }
   return { area: Math.max(0, inLot - subtract), inLot }
