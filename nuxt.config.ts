@@ -5,7 +5,7 @@ export default defineNuxtConfig({
   devtools: { enabled: false },
   telemetry: false,
   buildDir: process.env.WW_NUXT_DIR || '.nuxt',
-  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', 'nuxt-security'],
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', 'nuxt-security', '@vite-pwa/nuxt'],
   // response headers from nuxt-security; request checks (origin, body type and size) are server/middleware/request-guard.ts
   security: {
     nonce: true,
@@ -86,6 +86,9 @@ export default defineNuxtConfig({
     jobsBatchSize: 50,
     // sessions end on the server (table sessions): after this long unused, and at the latest after session.maxAge
     sessionIdleSeconds: 60 * 60 * 24 * 3,
+    // the hosted payment service through its official SDK: keys from NUXT_PAYMENTS_SECRET_KEY and
+    // NUXT_PAYMENTS_WEBHOOK_SECRET; apiHost/apiPort/apiProtocol only point it at the local fake (empty: the real one)
+    payments: { secretKey: '', webhookSecret: '', apiHost: '', apiPort: '', apiProtocol: '', currency: 'usd' },
     session: {
       // over HTTPS the start script makes these __Host-wildward-session and secure (sessionCookieEnv in scripts/lib/services.mjs)
       name: 'wildward-session',
@@ -105,11 +108,56 @@ export default defineNuxtConfig({
         if (!nitro.options.dev) await bundleScoreWorker(nitro.options.output.serverDir)
       },
     },
+    // brotli and gzip copies of JS, CSS, SVG and JSON made at build; answers the server makes are compressed by
+    // server/plugins/compression.ts
+    compressPublicAssets: { brotli: true, gzip: true },
+  },
+  // the installable app: manifest and service worker made at build (Workbox), nothing fetched from elsewhere;
+  // pages and the API answers a visit needs are kept for offline use (see DEVELOPERS.md "Offline")
+  pwa: {
+    registerType: 'autoUpdate',
+    // registered after the page has loaded by app/plugins/offline.client.ts, so the page's own files come first
+    injectRegister: false,
+    client: { registerPlugin: false },
+    manifest: {
+      name: 'Wildward',
+      short_name: 'Wildward',
+      description: 'Plan a yard that is at least 70 % native plants.',
+      lang: 'en-US',
+      start_url: '/yards',
+      display: 'standalone',
+      theme_color: '#2f5d50',
+      background_color: '#fbfaf6',
+      icons: [
+        { src: '/icon-192.png', sizes: '192x192', type: 'image/png' },
+        { src: '/icon-512.png', sizes: '512x512', type: 'image/png' },
+        { src: '/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+      ],
+    },
+    workbox: {
+      // pages are rendered on the server: no single app shell to fall back to
+      navigateFallback: null,
+      globPatterns: ['_nuxt/**/*.{js,css}', '_nuxt/nunito-latin-*.woff2', '*.{svg,png}'],
+      cleanupOutdatedCaches: true,
+      skipWaiting: true,
+      clientsClaim: true,
+      runtimeCaching: [
+        // pages: the network first, the last copy when offline
+        { urlPattern: ({ request, url }) => request.mode === 'navigate' && !url.pathname.startsWith('/api/'), handler: 'NetworkFirst', options: { cacheName: 'ww-pages', networkTimeoutSeconds: 8, cacheableResponse: { statuses: [200] }, expiration: { maxEntries: 60 } } },
+        // what the editor and a visit read (GET only; never sign-in or writes)
+        { urlPattern: ({ url }) => /^\/api\/(yards|visits|species|fits|auth\/me|_auth\/session)\b/.test(url.pathname), method: 'GET', handler: 'NetworkFirst', options: { cacheName: 'ww-api', networkTimeoutSeconds: 8, cacheableResponse: { statuses: [200] }, expiration: { maxEntries: 200 } } },
+      ],
+    },
   },
   vite: {
     optimizeDeps: {
       include: ['konva', 'vue-konva', 'polygon-clipping', 'chart.js', 'vue-chartjs', 'papaparse'],
     },
+  },
+  // links fetch (and run) the next page's code when touched or hovered, not as soon as they are on screen: on a
+  // phone that idle work and its bandwidth would land while the page itself is still loading
+  experimental: {
+    defaults: { nuxtLink: { prefetchOn: { interaction: true, visibility: false } } },
   },
   typescript: {
     strict: true,

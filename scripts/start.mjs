@@ -3,7 +3,7 @@
 import { join } from 'node:path'
 import { existsSync } from 'node:fs'
 import {
-  ROOT, DATA, log, fail, ensureNodeModules, startMariaDb, ensureDatabase, migrate, startFakeSmtp, build,
+  ROOT, DATA, log, fail, ensureNodeModules, startMariaDb, ensureDatabase, migrate, startFakeSmtp, startFakePayments, build,
   spawnChild, stopAll, waitForHttp, persistentSecret, waitForChildrenExit, sessionCookieEnv,
 } from './lib/services.mjs'
 
@@ -44,6 +44,16 @@ if (!smtpUrl) {
   captureUrl = fake.captureUrl
 }
 
+// the real payment service when its keys are in the environment; otherwise the local fake
+let paymentsEnv = {}
+if (!process.env.NUXT_PAYMENTS_SECRET_KEY) {
+  const fake = await startFakePayments({
+    port: Number(process.env.FAKE_PAYMENTS_PORT || 12111), webhookUrl: `${appUrl}/api/payments/webhook`, store: join(DATA, 'payments.json'),
+    secretKey: 'sk_test_' + persistentSecret('fake-payments-key'), webhookSecret: 'whsec_' + persistentSecret('fake-payments-webhook'),
+  })
+  paymentsEnv = fake.env
+}
+
 // demo mode (published demo passwords) by default only on loopback; elsewhere only with WW_DEMO=true
 const loopback = /^(127\.|localhost$|::1$|\[::1\]$)/.test(host)
 const demo = process.env.WW_DEMO === 'true' || (process.env.WW_DEMO !== 'false' && loopback)
@@ -62,6 +72,7 @@ const env = {
   NUXT_PUBLIC_DEMO_MODE: demo ? 'true' : 'false',
   NUXT_DEMO_EXPLICIT: process.env.WW_DEMO === 'true' ? 'true' : 'false',
   NUXT_UPLOAD_DIR: process.env.NUXT_UPLOAD_DIR || join(DATA, 'uploads'),
+  ...paymentsEnv,
 }
 
 const dev = process.argv.includes('--dev')

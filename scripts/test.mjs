@@ -5,7 +5,7 @@ import { join } from 'node:path'
 import { spawnSync } from 'node:child_process'
 import { rmSync, mkdirSync } from 'node:fs'
 import {
-  ROOT, DATA, log, ensureNodeModules, ensureChromium, ensureHaproxy, startMariaDb, ensureDatabase, migrate, startFakeSmtp,
+  ROOT, DATA, log, ensureNodeModules, ensureChromium, ensureHaproxy, startMariaDb, ensureDatabase, migrate, startFakeSmtp, startFakePayments,
   build, spawnChild, stopAll, waitForHttp, freePort, waitForChildrenExit, fail,
 } from './lib/services.mjs'
 
@@ -36,6 +36,12 @@ const nuxtDir = `.nuxt-test${suffix}`
 const outputDir = `.output-test${suffix}`
 const port = await freePort()
 const baseUrl = `http://127.0.0.1:${port}`
+const paymentsStore = join(DATA, `test-payments${suffix}.json`)
+rmSync(paymentsStore, { force: true })
+const payments = await startFakePayments({
+  port: await freePort(), webhookUrl: `${baseUrl}/api/payments/webhook`, store: paymentsStore,
+  secretKey: 'sk_test_wildward_tests', webhookSecret: 'whsec_wildward_tests', retryMs: 300,
+})
 const uploadDir = join(DATA, `test-uploads${suffix}`)
 rmSync(uploadDir, { recursive: true, force: true })
 const env = {
@@ -55,6 +61,7 @@ const env = {
   NUXT_UPLOAD_DIR: uploadDir,
   // the throttle test sends X-Forwarded-For to act as several addresses
   NUXT_TRUST_PROXY: 'true',
+  ...payments.env,
 }
 
 if (process.env.WW_SKIP_TYPECHECK !== '1') {
@@ -74,6 +81,6 @@ log(`test server on ${baseUrl}`)
 const r = spawnSync('npx', ['vitest', 'run', '--config', 'tests/vitest.config.ts', ...vitestArgs], {
   stdio: 'inherit',
   cwd: ROOT,
-  env: { ...env, WW_BASE_URL: baseUrl, WW_MAIL_URL: fake.captureUrl, DATABASE_URL: databaseUrl, WW_SERVER_ENTRY: join(ROOT, outputDir, 'server', 'index.mjs') },
+  env: { ...env, WW_BASE_URL: baseUrl, WW_MAIL_URL: fake.captureUrl, WW_PAYMENTS_URL: payments.url, WW_WEBHOOK_SECRET: 'whsec_wildward_tests', DATABASE_URL: databaseUrl, WW_SERVER_ENTRY: join(ROOT, outputDir, 'server', 'index.mjs') },
 })
 await finish(r.status ?? 1)

@@ -1,4 +1,5 @@
 import type { Role } from '#shared/types/roles'
+import { clearOfflineCaches } from '~/utils/offline-pages'
 
 /** The signed-in account (from nuxt-auth-utils' session) with role checks for navigation and page guards. */
 export function useAccount() {
@@ -9,6 +10,7 @@ export function useAccount() {
   async function signOut() {
     await $fetch('/api/auth/logout', { method: 'POST' })
     await clear()
+    await clearOfflineCaches()
     await navigateTo('/login')
   }
 

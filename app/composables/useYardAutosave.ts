@@ -1,28 +1,28 @@
-// Autosave a second after the last edit, with the version that was edited; unsaved work is kept in the
-// browser (localStorage) until the server has it, and a stale version opens the conflict choice.
-import type { YardDocument } from '#shared/schemas/yard-document'
+// Autosave a second after the last edit, with the version that was edited. Every edit is also kept on this
+// device (IndexedDB, app/utils/offline-store.ts) until the server has it, so work made offline survives a
+// closed tab; when the network returns it goes through the same versioned save, and a stale version opens
+// the conflict choice.
 import { useEditorStore } from '~/stores/editor'
+import { dropPendingYard, keepPendingYard, readPendingYard, type PendingYardEdit } from '~/utils/offline-store'
 
 export type SaveState = 'saved' | 'unsaved' | 'saving' | 'offline' | 'conflict' | 'error'
-export interface YardDraft { yardId: number; baseVersion: number; savedAt: string; document: YardDocument }
+export type YardDraft = PendingYardEdit
 
 export const AUTOSAVE_DELAY_MS = 1000
-const draftKey = (yardId: number) => `wildward.yard-draft.${yardId}`
+/** While offline, how often a save is tried again besides the browser's own "online" event. */
+export const OFFLINE_RETRY_MS = 5000
 
-export function readYardDraft(yardId: number): YardDraft | null {
-  try {
-    const raw = localStorage.getItem(draftKey(yardId))
-    return raw ? JSON.parse(raw) as YardDraft : null
-  } catch {
-    return null
-  }
+function currentUserId(): number | null {
+  return useUserSession().user.value?.id ?? null
 }
-export function clearYardDraft(yardId: number) {
-  try { localStorage.removeItem(draftKey(yardId)) } catch {}
+export async function readYardDraft(yardId: number): Promise<YardDraft | null> {
+  const userId = currentUserId()
+  return userId ? readPendingYard(userId, yardId) : null
 }
 
 export function useYardAutosave() {
   const editor = useEditorStore()
+  const userId = currentUserId()
   const state = ref<SaveState>('saved')
   const error = ref('')
   const conflictVersion = ref<number | null>(null)
@@ -32,49 +32,66 @@ export function useYardAutosave() {
   let timer: ReturnType<typeof setTimeout> | undefined
   let retry: ReturnType<typeof setTimeout> | undefined
   let inFlight = false
+  // writes to the device in order, so an older document never lands after a newer one
+  let keeping: Promise<void> = Promise.resolve()
 
-  function writeDraft() {
-    if (!editor.yardId) return
-    try {
-      const draft: YardDraft = { yardId: editor.yardId, baseVersion: editor.version, savedAt: new Date().toISOString(), document: editor.doc }
-      localStorage.setItem(draftKey(editor.yardId), JSON.stringify(draft))
-    } catch {
-      // a full or blocked localStorage must not stop editing; the save to the server still runs
-    }
+  // saved copies are kept too: a page opened offline comes from the browser's cache and may be older
+  function keepOnDevice(unsaved = true, document = editor.doc) {
+    const yardId = editor.yardId
+    if (!yardId || !userId || !editor.canEdit) return
+    const edit = { userId, yardId, baseVersion: editor.version, unsaved, document }
+    keeping = keeping.then(() => keepPendingYard(edit))
   }
 
   /** The current document is what the server has (after load, or after loading their version). */
+  /** Nothing of this yard stays on the device (its edits went somewhere else). */
+  function forget() {
+    const yardId = editor.yardId
+    if (yardId) keeping = keeping.then(() => dropPendingYard(yardId))
+    return keeping
+  }
+
   function markSaved() {
     savedRevision = editor.revision
     clearTimeout(timer)
     state.value = 'saved'
-    if (editor.yardId) clearYardDraft(editor.yardId)
+    keepOnDevice(false)
+  }
+
+  function goOffline() {
+    state.value = 'offline'
+    clearTimeout(retry)
+    retry = setTimeout(save, OFFLINE_RETRY_MS)
   }
 
   async function save() {
     clearTimeout(timer)
+    clearTimeout(retry)
     if (!editor.canEdit || !editor.yardId || state.value === 'conflict') return
     if (inFlight) { timer = setTimeout(save, 300); return }
     if (editor.revision === savedRevision) { state.value = 'saved'; return }
+    if (typeof navigator !== 'undefined' && navigator.onLine === false) { goOffline(); return }
     const revision = editor.revision
+    const yardId = editor.yardId
+    const document = editor.doc
     inFlight = true
     state.value = 'saving'
     try {
-      const res = await $fetch<{ version: number }>(`/api/yards/${editor.yardId}`, { method: 'PUT', body: { version: editor.version, document: editor.doc } })
+      const res = await $fetch<{ version: number }>(`/api/yards/${yardId}`, { method: 'PUT', body: { version: editor.version, document: editor.doc } })
       editor.version = res.version
       savedRevision = revision
       lastSavedAt.value = new Date()
       error.value = ''
-      if (editor.revision === savedRevision) { state.value = 'saved'; clearYardDraft(editor.yardId) }
-      else { state.value = 'unsaved'; timer = setTimeout(save, AUTOSAVE_DELAY_MS) }
+      if (editor.yardId !== yardId) return
+      if (editor.revision === savedRevision) { state.value = 'saved'; keepOnDevice(false, document) }
+      else { state.value = 'unsaved'; keepOnDevice(); timer = setTimeout(save, AUTOSAVE_DELAY_MS) }
     } catch (e) {
       const err = e as { statusCode?: number; data?: { message?: string; data?: { currentVersion?: number } } }
       if (err.statusCode === 409) {
         state.value = 'conflict'
         conflictVersion.value = err.data?.data?.currentVersion ?? null
       } else if (!err.statusCode) {
-        state.value = 'offline'
-        retry = setTimeout(save, 5000)
+        goOffline()
       } else {
         state.value = 'error'
         error.value = err.data?.message ?? 'The plan could not be saved'
@@ -87,21 +104,25 @@ export function useYardAutosave() {
   watch(() => editor.revision, (rev) => {
     if (rev === savedRevision || !editor.canEdit) return
     if (state.value !== 'conflict') state.value = state.value === 'offline' ? 'offline' : 'unsaved'
-    writeDraft()
+    keepOnDevice()
     clearTimeout(timer)
     timer = setTimeout(save, AUTOSAVE_DELAY_MS)
   })
 
-  const online = () => { if (state.value === 'offline') save() }
-  const leaving = (e: BeforeUnloadEvent) => { if (editor.revision !== savedRevision) e.preventDefault() }
+  const online = () => { if (state.value === 'offline' || state.value === 'unsaved') save() }
+  const offline = () => { if (state.value === 'unsaved' || state.value === 'saving') state.value = 'offline' }
+  // edits are on the device already; the browser asks only while one is on its way to the server
+  const leaving = (e: BeforeUnloadEvent) => { if (editor.revision !== savedRevision && state.value !== 'offline') e.preventDefault() }
   onMounted(() => {
     window.addEventListener('online', online)
+    window.addEventListener('offline', offline)
     window.addEventListener('beforeunload', leaving)
   })
   onBeforeUnmount(() => {
     clearTimeout(timer)
     clearTimeout(retry)
     window.removeEventListener('online', online)
+    window.removeEventListener('offline', offline)
     window.removeEventListener('beforeunload', leaving)
   })
 
@@ -110,5 +131,5 @@ export function useYardAutosave() {
     state.value = editor.revision === savedRevision ? 'saved' : 'unsaved'
   }
 
-  return { state, error, conflictVersion, lastSavedAt, save, markSaved, resolveConflict }
+  return { state, error, conflictVersion, lastSavedAt, save, markSaved, forget, resolveConflict }
 }

@@ -209,6 +209,30 @@ export async function startFakeSmtp({ smtpPort, httpPort, store }) {
   return { smtpUrl: `smtp://127.0.0.1:${smtpPort}`, captureUrl: `http://127.0.0.1:${httpPort}` }
 }
 
+/**
+ * Starts the fake payment service (API, hosted checkout page, signed webhooks to `webhookUrl`); returns the
+ * settings the app needs to talk to it through the official SDK.
+ */
+export async function startFakePayments({ port, webhookUrl, store, secretKey, webhookSecret, retryMs }) {
+  const child = spawn(process.execPath, [join(ROOT, 'scripts', 'fake-payments.mjs')], {
+    stdio: ['ignore', 'inherit', 'inherit'],
+    cwd: ROOT,
+    env: {
+      ...process.env, FAKE_PAYMENTS_PORT: String(port), FAKE_PAYMENTS_WEBHOOK_URL: webhookUrl, FAKE_PAYMENTS_STORE: store,
+      FAKE_PAYMENTS_SECRET_KEY: secretKey, FAKE_PAYMENTS_WEBHOOK_SECRET: webhookSecret, FAKE_PAYMENTS_RETRY_MS: String(retryMs ?? 1000),
+    },
+  })
+  children.push({ name: 'fake payments', child })
+  await waitForHttp(`http://127.0.0.1:${port}/_fake/log`, 20_000, child)
+  return {
+    url: `http://127.0.0.1:${port}`,
+    env: {
+      NUXT_PAYMENTS_SECRET_KEY: secretKey, NUXT_PAYMENTS_WEBHOOK_SECRET: webhookSecret,
+      NUXT_PAYMENTS_API_HOST: '127.0.0.1', NUXT_PAYMENTS_API_PORT: String(port), NUXT_PAYMENTS_API_PROTOCOL: 'http',
+    },
+  }
+}
+
 export async function waitForHttp(url, timeoutMs, child) {
   let exited = false
   child?.on('exit', () => { exited = true })
@@ -237,6 +261,13 @@ export function stopAll() {
 }
 
 export function build(env) {
+  // the root tsconfig.json points into .nuxt/, which the build's TypeScript transforms read (a fresh checkout lacks it)
+  if (!existsSync(join(ROOT, '.nuxt', 'tsconfig.server.json'))) {
+    log('generating .nuxt/ (nuxt prepare)')
+    const { WW_NUXT_DIR: _, ...prepareEnv } = env
+    mkdirSync(DATA, { recursive: true })
+    run('flock', [join(DATA, 'typecheck.lock'), 'npx', 'nuxt', 'prepare'], { env: { ...process.env, ...prepareEnv, WW_NUXT_DIR: '' } })
+  }
   log('building the app (nuxt build)')
   run('npx', ['nuxt', 'build'], { env: { ...process.env, ...env } })
 }

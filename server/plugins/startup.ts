@@ -1,6 +1,6 @@
 // Start-up work: make sure the organisation exists, load the species catalogue and, in demo mode, the demo data once.
 import { ensureOrganisation } from '../services/organisation'
-import { loadDemoData, loadDemoDrive } from '../services/demo-data'
+import { loadDemoData, loadDemoDrive, loadDemoSale } from '../services/demo-data'
 import { ensureCatalogue } from '../services/catalogue'
 import { demoRefusal } from '../utils/demo'
 
@@ -19,6 +19,7 @@ export default defineNitroPlugin(() => {
       await ensureCatalogue(!!config.demoData)
       if (config.demoData) await onceAcrossInstances('demo-data/1', (tx) => loadDemoData(tx))
       if (config.demoData) await onceAcrossInstances('demo-drive/1', (tx) => loadDemoDrive(tx))
+      if (config.demoData) await onceAcrossInstances('demo-sale/1', (tx) => loadDemoSale(tx))
     } catch (e) {
       console.error('[wildward] start-up work failed:', (e as Error).message)
     }

@@ -158,3 +158,26 @@ export async function loadDemoDrive(tx: Tx) {
     if (e.after !== e.before) await tx.insert(shareSnapshots).values({ yardId: e.yardId, day: day(-Math.floor(e.daysAgo / 2)), ...after })
   }
 }
+
+// The demo seed sale: open now, two pickups at coined places, mail with a flat fee, lots for the demo yards' natives
+// collected at coined places.
+export const DEMO_SALE_LOTS = [
+  { scientificName: 'Asclepias tuberosa', collected: 'wild-collected, Alderwick County roadside prairie, fall 2026', seedsPerPacket: 50, priceMinor: 400, stock: 40 },
+  { scientificName: 'Echinacea purpurea', collected: 'wild-collected, Bramble Fen meadow, fall 2026', seedsPerPacket: 100, priceMinor: 350, stock: 60 },
+  { scientificName: 'Carex pensylvanica', collected: 'wild-collected, Millrace woods, early summer 2026', seedsPerPacket: 200, priceMinor: 500, stock: 25 },
+  { scientificName: 'Rudbeckia hirta', collected: 'volunteer garden, Larch Hill, fall 2026', seedsPerPacket: 300, priceMinor: 300, stock: 50 },
+  { scientificName: 'Monarda fistulosa', collected: 'wild-collected, Alderwick County, fall 2026', seedsPerPacket: 150, priceMinor: 350, stock: 30 },
+  { scientificName: 'Schizachyrium scoparium', collected: 'wild-collected, Quillby Ridge, fall 2026', seedsPerPacket: 250, priceMinor: 300, stock: 35 },
+] as const
+
+export async function loadDemoSale(tx: Tx) {
+  const { seedSales, pickupEvents, seedLots } = await import('../database/schema')
+  const { speciesKey } = await import('#shared/utils/seed-plan')
+  const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10)
+  const saleId = insertedId(await tx.insert(seedSales).values({ name: `${DEMO_ORGANISATION} seed sale`, opensOn: day(-10), closesOn: day(60), currency: 'usd', mailEnabled: true, mailFeeMinor: 500 }).$returningId())
+  await tx.insert(pickupEvents).values([
+    { saleId, startsAt: `${day(21)} 10:00:00`, place: `${DEMO_TOWN} library porch, 12 Quarry Row` },
+    { saleId, startsAt: `${day(35)} 14:00:00`, place: 'Millrace community garden shed' },
+  ])
+  await tx.insert(seedLots).values(DEMO_SALE_LOTS.map((l) => ({ ...l, saleId, speciesKey: speciesKey(l.scientificName) })))
+}

@@ -3,9 +3,14 @@ import type { z } from 'zod'
 import { checkJsonBody, checkValue, type BodyCheck } from './json-body'
 
 export function badRequest(fields: Record<string, string>, message?: string): never {
+  throw invalidInput(fields, message)
+}
+
+/** The 400 that badRequest throws, for `throw invalidInput(…)` where control flow must see the throw. */
+export function invalidInput(fields: Record<string, string>, message?: string, status = 400) {
   const first = Object.entries(fields)[0]
-  throw createError({
-    status: 400,
+  return createError({
+    status,
     message: message ?? (first ? `${first[0] === '_' ? 'Input' : first[0]}: ${first[1]}` : 'Invalid input'),
     data: { fields },
   })

@@ -266,6 +266,14 @@ export function treatmentSteps(f: TreatmentFacts): string[] {
   return steps
 }
 
+/** The treatment a species' seed needs from its catalogue facts alone, where no yard's frost dates apply (a sale's packets). */
+export function treatmentFacts(f: SeedFacts & { sources?: Record<string, string> }): TreatmentFacts {
+  const cold = coldNeedOf(f)
+  const sowFresh = f.sowFresh === true
+  const route: SowRoute = sowFresh ? 'fresh' : cold.need === 'none' ? 'spring' : 'outdoor-winter'
+  return { coldNeed: cold.need, coldMoistDays: cold.days, route, sowFresh, scarify: f.scarify === true, hotWaterSoak: f.hotWaterSoak === true, sowing: sowingFor(f.seedsPerPound, f.seedNeedsLight), frostFree: false }
+}
+
 export function tagTreatment(f: Pick<TreatmentFacts, 'coldNeed' | 'coldMoistDays' | 'scarify' | 'hotWaterSoak' | 'sowFresh' | 'sowing'>): string {
   const parts: string[] = []
   if (f.sowFresh) parts.push('sown fresh')

@@ -1,13 +1,11 @@
 // Advice in the browser: the advisor previews a recommendation's effect on the three shares and records it;
 // the owner accepts it from the plan's Advice panel as an undoable edit, which the editor saves.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest'
-import { launch, newContext, outsideRequests, signIn, type Browser, type Page } from '../support/browser'
+import { launch, newContext, outsideRequests, signIn, hydrated, type Browser } from '../support/browser'
 import { newHomeowner } from '../support/http'
 import { visitTo } from '../api/advice/fixtures'
 
 let browser: Browser
-// Vue marks the app's root once it has hydrated; before that a change to a form control is lost
-const hydrated = (page: Page) => page.waitForFunction(() => !!(document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__)
 beforeAll(async () => { browser = await launch() })
 afterAll(async () => { await browser?.close() })
 

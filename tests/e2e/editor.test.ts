@@ -1,5 +1,5 @@
 // The yard editor in Chromium: drawing, the score worked out in the browser against the route, undo/redo, conflicts between
-// two tabs, drafts across a reload, and a refused non-image upload.
+// two tabs, unsaved work kept across a reload, and a refused non-image upload.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest'
 import { readFileSync } from 'node:fs'
 import { launch, newContext, type Browser, type BrowserContext, type Page } from '../support/browser'
@@ -216,7 +216,7 @@ describe('the yard editor', () => {
     await context.close()
   })
 
-  it('keeps unsaved work in the browser across a reload and offers it back', async () => {
+  it('keeps unsaved work on the device across a reload, brings it back and saves it once the server answers', async () => {
     const context = await signedInContext()
     const id = await newYard(context, { boundary: [[0, 0], [10, 0], [10, 10], [0, 10]] })
     const page = await context.newPage()
@@ -226,18 +226,18 @@ describe('the yard editor', () => {
     await page.locator('[data-tool=bed]').click()
     await dragOnPlan(page, [0.3, 0.3], [0.6, 0.6])
     await expect.poll(() => page.locator('[data-test=save-state]').getAttribute('data-state'), { timeout: 10_000 }).toBe('offline')
-    // the page asks before leaving with unsaved work; leave anyway, as a crash or a forced reload would
-    page.on('dialog', (d) => d.accept())
+    // the edit is on the device already, so leaving does not ask; reload as a crash or a forced reload would
     await page.reload()
-    await page.locator('[data-test=draft-offer]').waitFor()
-    expect(await elementCount(page)).toBe(1)
-    await page.unroute(`**/api/yards/${id}`)
-    await page.locator('[data-test=restore-draft]').click()
+    await page.locator('[data-test=restored-edits]').waitFor()
     await expect.poll(() => elementCount(page)).toBe(2)
-    await expect.poll(async () => (await savedDocument(context, id)).areas.length, { timeout: 10_000 }).toBe(1)
+    expect((await savedDocument(context, id)).areas.length).toBe(0)
+    await page.unroute(`**/api/yards/${id}`)
+    await expect.poll(async () => (await savedDocument(context, id)).areas.length, { timeout: 15_000 }).toBe(1)
+    await expect.poll(() => page.locator('[data-test=save-state]').getAttribute('data-state'), { timeout: 10_000 }).toBe('saved')
     await page.reload()
     await page.locator('[data-test=yard-canvas] canvas').first().waitFor()
-    expect(await page.locator('[data-test=draft-offer]').count()).toBe(0)
+    expect(await page.locator('[data-test=restored-edits]').count()).toBe(0)
+    expect(await elementCount(page)).toBe(2)
     await context.close()
   })
 

@@ -33,4 +33,9 @@ export async function signIn(page: Page, email: string, password = 'wildward-dem
   await page.waitForURL(/\/yards/)
 }
 
+/** Vue marks the app's root once it has hydrated; before that a click or a change to a form control is lost. */
+export function hydrated(page: Page) {
+  return page.waitForFunction(() => !!(document.querySelector('#__nuxt') as { __vue_app__?: unknown } | null)?.__vue_app__)
+}
+
 export type { Browser, BrowserContext, Page }
