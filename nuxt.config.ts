@@ -1,4 +1,5 @@
 // Nuxt configuration. Everything the browser loads is served by the app itself (fonts included).
+import { bundleScoreWorker } from './scripts/lib/score-worker.mjs'
 export default defineNuxtConfig({
   compatibilityDate: '2026-01-01',
   devtools: { enabled: false },
@@ -101,6 +102,12 @@ export default defineNuxtConfig({
   },
   nitro: {
     output: { dir: process.env.WW_OUTPUT_DIR || '.output' },
+    hooks: {
+      // the score engine's worker thread is bundled beside the server (server/services/score-pool.ts)
+      async compiled(nitro) {
+        if (!nitro.options.dev) await bundleScoreWorker(nitro.options.output.serverDir)
+      },
+    },
     // brotli and gzip copies of JS, CSS, SVG and JSON made at build; answers the server makes are compressed by
     // server/plugins/compression.ts
     compressPublicAssets: { brotli: true, gzip: true },

@@ -22,6 +22,20 @@ function refuseForeign(event: H3Event) {
   if (foreignSite || foreignOrigin) throw createError({ status: 403, message: 'Requests from other sites are not accepted' })
 }
 
+// a refused body still on its way is read and dropped up to this much, so the sender can read the 413 (a
+// connection closed mid-upload shows the client a broken pipe instead); past it the connection is closed
+const DISCARD_LIMIT_BYTES = 16 * 1024 * 1024
+
+function discardRest(event: H3Event, received: number) {
+  const req = event.node.req
+  let size = received
+  req.on('data', (chunk: Buffer) => {
+    size += chunk.length
+    if (size > DISCARD_LIMIT_BYTES) req.destroy()
+  })
+  req.resume()
+}
+
 function tooLarge(policy: RoutePolicy) {
   const mb = policy.maxBytes >= 1024 * 1024 ? `${Math.round(policy.maxBytes / 1024 / 1024)} MB` : `${Math.round(policy.maxBytes / 1024)} KB`
   return createError({ status: 413, message: `The request body is larger than ${mb}`, data: { fields: { _: `At most ${mb}` } } })
@@ -41,10 +55,8 @@ function cappedBody(event: H3Event, policy: RoutePolicy): PromiseLike<Buffer> {
       size += chunk.length
       if (size > policy.maxBytes) {
         req.off('data', onData)
-        req.pause()
-        // the rest of the body is never read: close the connection once the 413 is sent
-        setResponseHeader(event, 'connection', 'close')
-        event.node.res.once('finish', () => req.destroy())
+        // the rest of the body is never kept: dropped as it comes (the connection is cut past the discard limit)
+        discardRest(event, size)
         reject(tooLarge(policy))
         return
       }
@@ -74,7 +86,8 @@ export default defineEventHandler((event) => {
     return
   }
   if (declared > policy.maxBytes) {
-    setResponseHeader(event, 'connection', 'close')
+    if (declared > DISCARD_LIMIT_BYTES) setResponseHeader(event, 'connection', 'close')
+    else discardRest(event, 0)
     throw tooLarge(policy)
   }
   body._requestBody = cappedBody(event, policy)

@@ -22,6 +22,9 @@ export default defineNitroPlugin((nitroApp) => {
     } else if (isRetryableContention(e)) {
       set(503, 'The server is busy; try again')
       setResponseHeader(event, 'retry-after', 1)
+    } else if (e.statusCode === 503) {
+      // any other 503 (the score workers are all busy) says when to come back too
+      setResponseHeader(event, 'retry-after', 2)
     } else if (isDuplicateKey(e)) {
       set(409, 'That already exists (someone else just saved it); reload and try again')
     } else {

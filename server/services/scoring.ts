@@ -1,12 +1,13 @@
-// The server's side of scoring: load the species facts and the organisation's goal, call the engine
-// (shared/utils/score). Nothing is kept between requests.
+// The server's side of scoring: load the species facts and the organisation's goal, run the engine
+// (shared/utils/score) in a worker thread (./score-pool). Nothing is kept between requests.
 import type { YardDocument } from '#shared/schemas/yard-document'
 import type { Score, ScoreInputs } from '#shared/schemas/score'
 import type { SpeciesFacts } from '#shared/types/species'
-import { scoreYard, speciesKeys } from '#shared/utils/score'
+import { speciesKeys } from '#shared/utils/score'
 import { nameKey } from '#shared/utils/species-name'
 import { speciesFactsFor } from './catalogue'
 import { organisationGoal } from './organisation'
+import { scoreInWorker } from './score-pool'
 
 /** Catalogue facts for the species `doc` names, in `region`, keyed by `nameKey`. */
 export async function yardFacts(doc: YardDocument, region: string | null): Promise<Map<string, SpeciesFacts>> {
@@ -18,7 +19,7 @@ export async function yardFacts(doc: YardDocument, region: string | null): Promi
 export async function scoreDocument(doc: YardDocument, region?: string | null): Promise<Score> {
   const where = region ?? doc.region ?? null
   const [facts, goal] = await Promise.all([yardFacts(doc, where), organisationGoal()])
-  return scoreYard(doc, facts, goal, where)
+  return scoreInWorker({ doc, facts, goal, region: where })
 }
 
 /** The goal and the facts of `names` in `region`, as the editor's engine takes them. */

@@ -3,7 +3,7 @@
 // only where shapes really cross. Points are [x, y] in metres, y down.
 import polygonClipping from 'polygon-clipping'
 import { ringArea, pointInRing, segmentsIntersect, type Point, type Ring } from './polygon'
-import { clipConvex, triangulate } from './convex-pieces'
+import { clipConvex, convexPartition } from './convex-pieces'
 
 export type Polygon = Ring[]
 export type MultiPolygon = Polygon[]
@@ -119,6 +119,79 @@ export interface Shape {
   ring: Ring; box: Box; convex: boolean; rect: boolean; area: number; sign: number
   /** convex pieces, worked out on first use (see `convexPieces`) */
   pieces?: Shape[] | null
+  /** the edges binned in a grid, built on first use for outlines of many points (see `edgeGrid`) */
+  grid?: EdgeGrid | null
+}
+
+/** A shape's edges binned in a uniform grid: a point or disc query looks at the edges near it only. */
+interface EdgeGrid { minX: number; minY: number; cw: number; ch: number; cols: number; rows: number; cells: number[][]; seen: Int32Array; stamp: number }
+
+// below this many points a plain walk over the edges is as quick as the grid
+const GRID_MIN_POINTS = 48
+
+function edgeGrid(s: Shape): EdgeGrid | null {
+  if (s.grid !== undefined) return s.grid
+  const n = s.ring.length
+  if (n < GRID_MIN_POINTS || s.box.maxX <= s.box.minX || s.box.maxY <= s.box.minY) return (s.grid = null)
+  const side = Math.ceil(Math.sqrt(n))
+  const { minX, minY } = s.box
+  const cw = (s.box.maxX - minX) / side
+  const ch = (s.box.maxY - minY) / side
+  const cells: number[][] = Array.from({ length: side * side }, () => [])
+  const col = (x: number) => Math.min(side - 1, Math.max(0, Math.floor((x - minX) / cw)))
+  const row = (y: number) => Math.min(side - 1, Math.max(0, Math.floor((y - minY) / ch)))
+  for (let i = 0; i < n; i++) {
+    const a = s.ring[i]!
+    const b = s.ring[(i + 1) % n]!
+    for (let r = row(Math.min(a[1], b[1])), r1 = row(Math.max(a[1], b[1])); r <= r1; r++) {
+      for (let c = col(Math.min(a[0], b[0])), c1 = col(Math.max(a[0], b[0])); c <= c1; c++) cells[r * side + c]!.push(i)
+    }
+  }
+  return (s.grid = { minX, minY, cw, ch, cols: side, rows: side, cells, seen: new Int32Array(n), stamp: 0 })
+}
+
+// each edge of the cells in [c0, c1] × [r0, r1] once (an edge can lie in several cells)
+function forEdgesIn(g: EdgeGrid, c0: number, c1: number, r0: number, r1: number, visit: (i: number) => boolean | void): boolean {
+  const stamp = ++g.stamp
+  for (let r = Math.max(0, r0); r <= Math.min(g.rows - 1, r1); r++) {
+    for (let c = Math.max(0, c0); c <= Math.min(g.cols - 1, c1); c++) {
+      for (const i of g.cells[r * g.cols + c]!) {
+        if (g.seen[i] === stamp) continue
+        g.seen[i] = stamp
+        if (visit(i)) return true
+      }
+    }
+  }
+  return false
+}
+
+/** `pointInRing` on a prepared shape: only the edges in the point's grid row, right of it, can cross its ray. */
+export function pointInShape(p: Point, s: Shape): boolean {
+  const g = edgeGrid(s)
+  if (!g) return pointInRing(p, s.ring)
+  if (p[1] < s.box.minY || p[1] > s.box.maxY || p[0] > s.box.maxX) return false
+  const ring = s.ring
+  const n = ring.length
+  const r = Math.min(g.rows - 1, Math.floor((p[1] - g.minY) / g.ch))
+  const c = Math.max(0, Math.min(g.cols - 1, Math.floor((p[0] - g.minX) / g.cw)))
+  let inside = false
+  forEdgesIn(g, c, g.cols - 1, r, r, (i) => {
+    const [xi, yi] = ring[(i + 1) % n]!
+    const [xj, yj] = ring[i]!
+    if ((yi > p[1]) !== (yj > p[1]) && p[0] < ((xj - xi) * (p[1] - yi)) / (yj - yi) + xi) inside = !inside
+  })
+  return inside
+}
+
+/** Some edge of the shape comes closer than `r` to the point (only edges in grid cells within reach are looked at). */
+function edgeWithin(p: Point, r: number, s: Shape): boolean {
+  const g = edgeGrid(s)
+  if (!g) return distanceToRing(p, s.ring) < r
+  const ring = s.ring
+  const n = ring.length
+  const col = (x: number) => Math.floor((x - g.minX) / g.cw)
+  const row = (y: number) => Math.floor((y - g.minY) / g.ch)
+  return forEdgesIn(g, col(p[0] - r), col(p[0] + r), row(p[1] - r), row(p[1] + r), (i) => distanceToSegment(p, ring[i]!, ring[(i + 1) % n]!) < r)
 }
 
 function isBoxRing(ring: Ring, box: Box): boolean {
@@ -161,14 +234,14 @@ function inConvexClosed(p: Point, s: Shape): boolean {
 export function circleInside(cx: number, cy: number, r: number, s: Shape): boolean {
   if (cx - r < s.box.minX || cx + r > s.box.maxX || cy - r < s.box.minY || cy + r > s.box.maxY) return false
   if (s.rect) return true
-  if (!pointInRing([cx, cy], s.ring)) return false
-  return distanceToRing([cx, cy], s.ring) >= r
+  if (!pointInShape([cx, cy], s)) return false
+  return !edgeWithin([cx, cy], r, s)
 }
 
 /** The disc and the shape share no interior. */
 export function circleApart(cx: number, cy: number, r: number, s: Shape): boolean {
   if (cx + r <= s.box.minX || cx - r >= s.box.maxX || cy + r <= s.box.minY || cy - r >= s.box.maxY) return true
-  return !pointInRing([cx, cy], s.ring) && distanceToRing([cx, cy], s.ring) >= r
+  return !pointInShape([cx, cy], s) && !edgeWithin([cx, cy], r, s)
 }
 
 function anyEdgesMeet(a: Ring, b: Ring, bBox: Box): boolean {
@@ -346,8 +419,8 @@ export const cutterOf = shapeOf
 /** The shape as convex pieces with disjoint interiors (itself when convex); null when it cannot be cut. */
 export function convexPieces(s: Shape): Shape[] | null {
   if (s.pieces === undefined) {
-    const triangles = s.convex ? null : triangulate(s.ring)
-    s.pieces = s.convex ? [s] : triangles ? triangles.map(shapeOf) : null
+    const parts = s.convex ? null : convexPartition(s.ring)
+    s.pieces = s.convex ? [s] : parts ? parts.map(shapeOf) : null
   }
   return s.pieces
 }
@@ -376,6 +449,20 @@ export function areaInLot(s: Shape, lot: Shape | null): number {
   return pieces ? pieces.reduce((sum, p) => sum + p.area, 0) : ringInLot(s.ring, lot, s).area
 }
 
+// clipping leaves points a rounding error apart; an edge that short has no trustworthy direction
+function withoutNearRepeats(ring: Ring, eps: number): Ring | null {
+  const out: Ring = []
+  for (const p of ring) {
+    const last = out[out.length - 1]
+    if (!last || Math.abs(p[0] - last[0]) + Math.abs(p[1] - last[1]) > eps) out.push(p)
+  }
+  while (out.length > 1 && Math.abs(out[0]![0] - out[out.length - 1]![0]) + Math.abs(out[0]![1] - out[out.length - 1]![1]) <= eps) out.pop()
+  return out.length >= 3 ? out : null
+}
+
+// a clipped piece smaller than this share of the piece it was clipped to is dropped
+const SLIVER = 1e-9
+
 /**
  * Visible area of a ground-layer shape: its part inside the lot, less everything drawn above it (`above`).
  * Every outline is cut into convex pieces, so each covered part is |P ∩ U| = |P| + |U| − |P ∪ U| for a convex
@@ -403,9 +490,17 @@ export function visibleArea(ring: Ring, lot: Shape | null, above: Cutter[], prep
       for (const x of cp) cut.push(x)
     }
     for (const p of pieces) {
-      // only the cutter pieces that reach this piece can cover it
-      const reach = cut.filter((c) => boxesOverlap(c.box, p.box))
-      if (reach.length) subtract += p.area + convexUnionArea(reach) - convexUnionArea([p, ...reach])
+      // |P ∩ U| is the area of the union of each cutter piece clipped to P (convex by convex, small)
+      const inP: Shape[] = []
+      for (const c of cut) {
+        if (!boxesOverlap(c.box, p.box)) continue
+        const part = c.ring.length <= p.ring.length ? clipConvex(p.ring, c.ring) : clipConvex(c.ring, p.ring)
+        const ring = part && withoutNearRepeats(part, 1e-9 * (p.box.maxX - p.box.minX + p.box.maxY - p.box.minY))
+        const q = ring && shapeOf(ring)
+        // a sliver adds at most its own (negligible) area and its orientation is not to be trusted
+        if (q && q.area > SLIVER * p.area) inP.push(q)
+      }
+      if (inP.length) subtract += convexUnionArea(inP)
     }
   }
   return { area: Math.max(0, inLot - subtract), inLot }
@@ -482,7 +577,7 @@ export function roomiestPoint(lot: Shape | null, steps = 40): { point: Point; cl
   for (let i = 1; i < steps; i++) {
     for (let j = 1; j < steps; j++) {
       const p: Point = [minX + ((maxX - minX) * i) / steps, minY + ((maxY - minY) * j) / steps]
-      if (!pointInRing(p, lot.ring)) continue
+      if (!pointInShape(p, lot)) continue
       const d = distanceToRing(p, lot.ring)
       if (d > best.clearance) best = { point: p, clearance: d }
     }

@@ -3,9 +3,9 @@
 import { isAreaPlanting, phaseOf, type YardDocument, type YardPlanting } from '../../schemas/yard-document'
 import type { Layer, PlantingStatus, SpeciesFacts } from '../../types/species'
 import type { ScoreWarning } from '../../schemas/score'
-import { areaInLot, circleAreaInLot, circleRing, shapeOf, visibleArea, type Cutter, type Shape } from '../geometry'
+import { areaInLot, circleAreaInLot, pointInShape, shapeOf, visibleArea, type Cutter, type Shape } from '../geometry'
+import type { Ring } from '../polygon'
 import { nameKey } from '../species-name'
-import { pointInRing, type Ring } from '../polygon'
 import { plantsNeeded } from '../plant-count'
 import { regionName } from '../regions'
 import { sameFacts, type ScoreMemo, type Remembered } from './memo'
@@ -270,7 +270,7 @@ export function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts 
   const count = p.count ?? 1
   // a clump of n plants is one disc of n plants' footprint, centred on the planting
   const area = circleAreaInLot(p.x!, p.y!, clumpRadiusOf(p, f, layer), lot)
-  const centreIn = !lot || pointInRing([p.x!, p.y!], lot.ring)
+  const centreIn = !lot || pointInShape([p.x!, p.y!], lot)
   if (!centreIn) warnings.push({ id: p.id, message: `${name} stands outside the lot, so its plants are not counted` })
   return { index, id: p.id, name, group, status, layer, isArea: false, lawn: false, cultivar, count: centreIn ? count : 0, area, volume: area * height, spread, height, spacing: null }
 }

@@ -62,9 +62,35 @@ describe('the worst document', () => {
     expect(took.filter((ms) => ms > STALL_MS)).toEqual([])
   }, 120_000)
 
-  // Not yet: scoring overlapping outlines (polygon clipping in server/services/scoring.ts) takes seconds for
-  // documents far below these caps; the score engine must run off the event loop or bound its clipping work.
-  it.todo('is scored while health keeps answering')
+  // The engine runs in a worker thread with a time limit (server/services/score-pool.ts): the worst document
+  // is either scored or refused as too intricate (422 naming the document), and health answers throughout.
+  it('is scored while health keeps answering', async () => {
+    const { client } = await newHomeowner('worst-score')
+    const work = client.post('/api/score', worstDocument())
+    const took = await pollHealth(work)
+    const r = await work
+    expect([200, 422]).toContain(r.status)
+    if (r.status === 422) {
+      expect(r.body.message).toMatch(/too intricate to score/)
+      expect(r.body.data.fields.document).toBeTruthy()
+    } else expect(r.body.plantings).toHaveLength(MAX_PLANTINGS)
+    expect(took.length).toBeGreaterThan(1)
+    expect(took.filter((ms) => ms > STALL_MS)).toEqual([])
+  }, 120_000)
+
+  it('scores the largest count of point plantings while health keeps answering', async () => {
+    const { client } = await newHomeowner('many-points')
+    const doc = worstDocument()
+    doc.plantings = doc.plantings.filter((p) => !('points' in p))
+    // a 100 m square lot: every clump (x 10…89, y 10…72) stands inside it
+    doc.boundary = [[0, 0], [100, 0], [100, 100], [0, 100]]
+    const work = client.post('/api/score', doc)
+    const took = await pollHealth(work)
+    const r = await work
+    expect(r.status).toBe(200)
+    expect(r.body.shares.count.total).toBe(3 * doc.plantings.length)
+    expect(took.filter((ms) => ms > STALL_MS)).toEqual([])
+  }, 120_000)
 
   it('an anonymous oversized score request is refused at once, and one past the vertex bound is a 400', async () => {
     const anonymous = await new Client().request('POST', '/api/score', 'x'.repeat(MAX_DOCUMENT_BYTES + 1), { 'content-type': 'application/json' })

@@ -4,9 +4,9 @@ import fc from 'fast-check'
 import turfArea from '@turf/area'
 import {
   circleRing, circleRingArea, convexUnionArea, circleAreaInLot, circleInside, cutterOf, multiPolygonArea, ringInLot, ringInside,
-  ringsApart, roomiestPoint, shapeOf, visibleArea, visibleGeometry, boxOf, isConvex,
+  ringsApart, roomiestPoint, shapeOf, visibleArea, visibleGeometry, boxOf, isConvex, pointInShape, circleApart, distanceToRing,
 } from '#shared/utils/geometry'
-import { ringArea, type Ring } from '#shared/utils/polygon'
+import { pointInRing, ringArea, type Ring } from '#shared/utils/polygon'
 import { METRES_PER_FOOT, SQUARE_METRES_PER_SQUARE_FOOT, fromDisplayLength } from '#shared/utils/units'
 
 const rect = (x: number, y: number, w: number, h: number): Ring => [[x, y], [x + w, y], [x + w, y + h], [x, y + h]]
@@ -190,4 +190,28 @@ describe('ground-layer cutting', () => {
       expect(convexUnionArea(rings.map(shapeOf))).toBeCloseTo(expected, 6)
     }), { numRuns: 500 })
   }, 30_000)
+})
+
+// a lot of many points is indexed by a grid of its edges; every answer must equal the plain walk over all edges
+describe('many-point outlines answer as a walk over every edge does', () => {
+  const star = (n: number, outer: number, inner: number): Ring => Array.from({ length: n }, (_, i) => {
+    const r = i % 2 ? inner : outer
+    const t = (i / n) * 2 * Math.PI
+    return [50 + r * Math.cos(t), 50 + r * Math.sin(t)]
+  })
+  const lots = [star(1000, 49, 48.5), star(200, 40, 20), [...star(300, 30, 29).slice(0, 150), [50, 50] as [number, number]]]
+  it('agrees on points and discs near and far from the outline', () => {
+    const coord = fc.double({ min: -5, max: 105, noNaN: true })
+    for (const ring of lots) {
+      const lot = shapeOf(ring)
+      fc.assert(fc.property(coord, coord, fc.double({ min: 0.01, max: 30, noNaN: true }), (x, y, r) => {
+        const inside = pointInRing([x, y], ring)
+        expect(pointInShape([x, y], lot)).toBe(inside)
+        const d = distanceToRing([x, y], ring)
+        expect(circleInside(x, y, r, lot)).toBe(x - r >= lot.box.minX && x + r <= lot.box.maxX && y - r >= lot.box.minY && y + r <= lot.box.maxY && inside && d >= r)
+        const boxApart = x + r <= lot.box.minX || x - r >= lot.box.maxX || y + r <= lot.box.minY || y - r >= lot.box.maxY
+        expect(circleApart(x, y, r, lot)).toBe(boxApart || (!inside && d >= r))
+      }), { numRuns: 400 })
+    }
+  })
 })
