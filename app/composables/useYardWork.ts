@@ -17,7 +17,8 @@ export function useYardWork(autosave: ReturnType<typeof useYardAutosave>) {
     for (let i = 0; i < 50 && autosave.state.value !== 'saved'; i++) {
       if (autosave.state.value === 'conflict' || autosave.state.value === 'error' || autosave.state.value === 'offline') return 'Save the plan first (it is not saved just now).'
       await autosave.save()
-      if (autosave.state.value !== 'saved') await new Promise((r) => setTimeout(r, 200))
+      // read afresh: the save above changed it
+      if (String(autosave.state.value) !== 'saved') await new Promise((r) => setTimeout(r, 200))
     }
     try {
       const res = await $fetch<{ version: number }>(`/api/yards/${editor.yardId}/work`, { method: 'POST', body: { version: editor.version, action, ids, date } })

@@ -114,6 +114,6 @@ const SMALL_BODY_CHARS = 64 * 1024
  */
 export async function readBodyInWorker<N extends BodySchemaName>(event: H3Event, schema: N): Promise<z.infer<(typeof BODY_SCHEMAS)[N]>> {
   const raw = await readRawBody(event, 'utf8')
-  if (!raw || raw.length < SMALL_BODY_CHARS) return answerOf(checkJsonBody(BODY_SCHEMAS[schema], raw))
+  if (!raw || raw.length < SMALL_BODY_CHARS) return answerOf(checkJsonBody(BODY_SCHEMAS[schema], raw) as BodyCheck<z.infer<(typeof BODY_SCHEMAS)[N]>>)
   return answerOf((await run({ kind: 'body', schema, raw })) as BodyCheck<z.infer<(typeof BODY_SCHEMAS)[N]>>)
 }
