@@ -3,7 +3,7 @@
 import { isAreaPlanting, phaseOf, type YardDocument, type YardPlanting } from '../../schemas/yard-document'
 import type { Layer, PlantingStatus, SpeciesFacts } from '../../types/species'
 import type { ScoreWarning } from '../../schemas/score'
-import { areaInLot, circleAreaInLot, pointInShape, shapeOf, visibleArea, type Cutter, type Shape } from '../geometry'
+import { areaInLot, circleAreaInLot, circleRing, pointInShape, shapeOf, visibleArea, type Cutter, type Shape } from '../geometry'
 import type { Ring } from '../polygon'
 import { nameKey } from '../species-name'
 import { plantsNeeded } from '../plant-count'
@@ -269,7 +269,7 @@ export function measurePlanting(p: YardPlanting, index: number, f: SpeciesFacts 
   const height = g ? g.height : matureHeight
   const count = p.count ?? 1
   // a clump of n plants is one disc of n plants' footprint, centred on the planting
-  const area = circleAreaInLot(p.x!, p.y!, clumpRadiusOf(p, f, layer), lot)
+  const area = circleAreaInLot(p.x!, p.y!, (spread / 2) * Math.sqrt(count), lot)
   const centreIn = !lot || pointInShape([p.x!, p.y!], lot)
   if (!centreIn) warnings.push({ id: p.id, message: `${name} stands outside the lot, so its plants are not counted` })
   return { index, id: p.id, name, group, status, layer, isArea: false, lawn: false, cultivar, count: centreIn ? count : 0, area, volume: area * height, spread, height, spacing: null }
