@@ -58,6 +58,10 @@ export async function readUploadedFile(event: Parameters<typeof readMultipartFor
   if (length > MAX_IMAGE_BYTES + 64 * 1024) {
     throw createError({ status: 413, message: 'The image is larger than 10 MB', data: { fields: { [field]: 'The image is larger than 10 MB' } } })
   }
+  // h3 answers nothing for a body that is not multipart: say which type the upload must be
+  if (!(getRequestHeader(event, 'content-type') ?? '').toLowerCase().startsWith('multipart/form-data')) {
+    throw createError({ status: 415, message: 'Send the upload as multipart/form-data', data: { fields: { [field]: 'Choose an image to upload' } } })
+  }
   const parts = await readMultipartFormData(event)
   const part = parts?.find((p) => p.name === field && p.filename !== undefined)
   if (!part) throw createError({ status: 400, message: 'Choose an image to upload', data: { fields: { [field]: 'Choose an image to upload' } } })
