@@ -14,7 +14,8 @@ function fieldsOf(input: unknown): Record<string, string> {
 describe('yard document schema', () => {
   it('accepts a document and fills defaults', () => {
     const doc = yardDocument.parse({ boundary: rect(0, 0, 10, 10), plantings: [plant(0), { id: 'd', species: null, points: rect(1, 1, 2, 2), spacing: null }] })
-    expect(doc).toMatchObject({ format: 'wildward.yard/1', units: 'ft', areas: [], lines: [] })
+    // a document read now is written in the current format (issue: export writes /2, /1 still reads)
+    expect(doc).toMatchObject({ format: 'wildward.yard/2', units: 'ft', areas: [], lines: [] })
   })
 
   it('names the element and its id in each refusal', () => {
