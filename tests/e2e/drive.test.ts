@@ -22,7 +22,7 @@ describe('pledge drive dashboard in the browser', () => {
     await expect.poll(() => home.locator('.field-error').first().textContent()).toMatch(/neighbourhood/)
     await home.getByLabel('Neighbourhood or postal code').fill('Browserby')
     await home.getByRole('button', { name: 'Pledge the yard' }).click()
-    await expect.poll(() => home.locator('[data-test=pledge-status]').textContent()).toMatch(/pledged/)
+    await expect.poll(() => home.locator('[data-test=pledge-status]').first().textContent()).toMatch(/pledged/)
     await homeCtx.close()
 
     const summary = (await (await demo('coordinator')).get('/api/drives/current/summary')).body

@@ -74,6 +74,16 @@ export async function mailTo(address: string): Promise<Array<{ subject: string; 
   return r.json()
 }
 
+/** Polls the captured mail to an address until `count` messages pass `keep` (the capture can lag the SMTP reply). */
+export async function mailUntil(address: string, count: number, keep: (m: { subject: string }) => boolean = () => true, timeoutMs = 15_000) {
+  const until = Date.now() + timeoutMs
+  for (;;) {
+    const list = (await mailTo(address)).filter(keep)
+    if (list.length >= count || Date.now() > until) return list
+    await new Promise((r) => setTimeout(r, 200))
+  }
+}
+
 /** Waits for the next mail to an address (mail is sent in the request, but give SMTP a moment). */
 export async function waitForMail(address: string, count = 1, timeoutMs = 5000) {
   const until = Date.now() + timeoutMs
