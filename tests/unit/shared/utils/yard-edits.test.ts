@@ -1,26 +1,11 @@
 import { describe, it, expect } from 'vitest'
-import { emptyYardDocument, type YardDocument } from '#shared/schemas/yard-document'
+import { sampleDoc } from './yard-fixtures'
 import {
   snapStep, snapValue, driftPlantCount, translateElements, duplicateElements, deleteElements, shiftZ,
   layeredShapes, hitTest, elementsInBox, distanceToPolygon, plantRadius,
 } from '#shared/utils/yard-edits'
 import { distanceToSegment } from '#shared/utils/geometry'
 
-function sampleDoc(): YardDocument {
-  return emptyYardDocument({
-    boundary: [[0, 0], [20, 0], [20, 10], [0, 10]],
-    areas: [
-      { id: 'house', kind: 'building', z: 3, points: [[1, 1], [5, 1], [5, 4], [1, 4]] },
-      { id: 'bed', kind: 'bed', z: 2, points: [[8, 2], [12, 2], [12, 6], [8, 6]] },
-    ],
-    plantings: [
-      { id: 'lawn', species: 'Poa pratensis', z: 1, points: [[0, 0], [20, 0], [20, 10], [0, 10]], spacing: null },
-      { id: 'oak', species: 'Quercus alba', x: 15, y: 5, count: 1, spread: 6 },
-      { id: 'aster', species: 'Symphyotrichum novae-angliae', x: 10, y: 4, count: 4, spread: 0.5 },
-    ],
-    lines: [{ id: 'wire', kind: 'overhead', points: [[0, 9], [20, 9]] }],
-  })
-}
 
 describe('snapping', () => {
   it('snaps to half a foot (0.1524 m: 0.5 × 0.3048, international foot) or to 0.1 m', () => {
